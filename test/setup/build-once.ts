@@ -1,0 +1,11 @@
+// CLI tests run the real `bin/tankrunway.js`, which loads the compiled `dist/`: compile once per test run.
+import { execFileSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+
+export default function setup(): void {
+  const root = fileURLToPath(new URL('../..', import.meta.url));
+  execFileSync(process.execPath, ['node_modules/typescript/bin/tsc', '-p', 'tsconfig.build.json'], {
+    cwd: root,
+    stdio: 'inherit',
+  });
+}
