@@ -1,0 +1,4 @@
+import type { BenchSection } from '../harness.js';
+
+/** Every section of `npm run bench`, in print order; each lives in its own file beside this one. */
+export const sections: BenchSection[] = [];
