@@ -1,0 +1,112 @@
+import type Database from 'better-sqlite3';
+import { parseJsonColumn } from './json-column.js';
+import type { NewTank, Tank, TankSettings } from './types.js';
+
+interface TankDbRow {
+  id: number;
+  team_id: string;
+  code: string;
+  name: string;
+  site: string | null;
+  product: string | null;
+  spec: string;
+  settings: string;
+  created_by: string;
+  created_at: number;
+  updated_at: number;
+}
+
+export type TankPatch = Partial<Pick<Tank, 'name' | 'site' | 'product' | 'spec' | 'settings'>>;
+
+export interface TanksRepo {
+  add(teamId: string, tank: NewTank, userId: string, at: number): Tank;
+  /** Case-insensitive on the short code; live tanks only. */
+  byCode(teamId: string, code: string): Tank | undefined;
+  byId(teamId: string, id: number): Tank | undefined;
+  list(teamId: string): Tank[];
+  update(teamId: string, id: number, patch: TankPatch, at: number): Tank | undefined;
+  /** Soft delete: history stays for the audit trail; the code becomes free again. */
+  remove(teamId: string, id: number, at: number): boolean;
+}
+
+const toTank = (r: TankDbRow): Tank => ({
+  teamId: r.team_id,
+  id: r.id,
+  code: r.code,
+  name: r.name,
+  site: r.site,
+  product: r.product,
+  spec: parseJsonColumn<unknown>(r.spec, null),
+  settings: parseJsonColumn<TankSettings>(r.settings, {}),
+  createdBy: r.created_by,
+  createdAt: r.created_at,
+  updatedAt: r.updated_at,
+});
+
+export function tanksRepo(db: Database.Database): TanksRepo {
+  const insert = db.prepare(
+    `INSERT INTO tanks (team_id, code, name, site, product, spec, settings, created_by, created_at, updated_at)
+     VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+  );
+  const byCode = db.prepare<[string, string], TankDbRow>(
+    'SELECT * FROM tanks WHERE team_id = ? AND code = ? COLLATE NOCASE AND deleted_at IS NULL',
+  );
+  const byId = db.prepare<[string, number], TankDbRow>(
+    'SELECT * FROM tanks WHERE team_id = ? AND id = ? AND deleted_at IS NULL',
+  );
+  const list = db.prepare<[string], TankDbRow>(
+    'SELECT * FROM tanks WHERE team_id = ? AND deleted_at IS NULL ORDER BY code COLLATE NOCASE',
+  );
+  const update = db.prepare(
+    `UPDATE tanks SET name = ?, site = ?, product = ?, spec = ?, settings = ?, updated_at = ?
+     WHERE team_id = ? AND id = ? AND deleted_at IS NULL`,
+  );
+  const remove = db.prepare(
+    'UPDATE tanks SET deleted_at = ? WHERE team_id = ? AND id = ? AND deleted_at IS NULL',
+  );
+
+  const repo: TanksRepo = {
+    add: (teamId, tank, userId, at) => {
+      const info = insert.run(
+        teamId,
+        tank.code,
+        tank.name ?? tank.code,
+        tank.site ?? null,
+        tank.product ?? null,
+        JSON.stringify(tank.spec),
+        JSON.stringify(tank.settings ?? {}),
+        userId,
+        at,
+        at,
+      );
+      return toTank(byId.get(teamId, Number(info.lastInsertRowid))!);
+    },
+    byCode: (teamId, code) => {
+      const row = byCode.get(teamId, code);
+      return row ? toTank(row) : undefined;
+    },
+    byId: (teamId, id) => {
+      const row = byId.get(teamId, id);
+      return row ? toTank(row) : undefined;
+    },
+    list: (teamId) => list.all(teamId).map(toTank),
+    update: (teamId, id, patch, at) => {
+      const current = repo.byId(teamId, id);
+      if (!current) return undefined;
+      const next = { ...current, ...patch };
+      update.run(
+        next.name,
+        next.site,
+        next.product,
+        JSON.stringify(next.spec),
+        JSON.stringify(next.settings),
+        at,
+        teamId,
+        id,
+      );
+      return repo.byId(teamId, id);
+    },
+    remove: (teamId, id, at) => remove.run(at, teamId, id).changes === 1,
+  };
+  return repo;
+}
