@@ -1,4 +1,5 @@
 import type Database from 'better-sqlite3';
+import { createScheduleTables } from '../schedule/schema.js';
 
 /**
  * The store's schema, as an ordered list: each migration runs once, in order, inside one transaction, and
@@ -121,6 +122,7 @@ export const migrations: Migration[] = [
       `);
     },
   },
+  { version: 2, name: 'schedule: lease, claimed posts, notice states', up: createScheduleTables },
 ];
 
 /** Brings a database up to the last migration; each step commits on its own so a crash leaves a known version. */
