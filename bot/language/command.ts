@@ -9,7 +9,7 @@ import { z } from 'zod';
 
 /** Length and volume units of the tank specification (cli-contract section 1). */
 export const lengthUnitSchema = z.enum(['mm', 'cm', 'm', 'in', 'ft']);
-export const volumeUnitSchema = z.enum(['L', 'm3', 'gal', 'impgal', 'bbl', 'ft3']);
+export const volumeUnitSchema = z.enum(['L', 'm3', 'gal', 'impgal', 'bbl', 'ft3', 'in3']);
 export type LengthUnitWord = z.infer<typeof lengthUnitSchema>;
 export type VolumeUnitWord = z.infer<typeof volumeUnitSchema>;
 
@@ -117,6 +117,8 @@ export const addTankSchema = z.object({
   type: z.literal('add-tank'),
   tank: tankName,
   spec: tankSpecInputSchema,
+  /** A longer display name (`name="Generator day tank"`); `tank` is the short code. */
+  name: z.string().min(1).max(128).optional(),
   product: z.string().min(1).optional(),
   site: z.string().min(1).optional(),
   /** A strapping tank sent without rows: the bot should now await 'strapping-rows'. */
@@ -151,7 +153,13 @@ export const thresholdSchema = z.union([
 /** One setting; `scope` says whether it belongs to a tank or to the whole team. */
 export const settingSchema = z.discriminatedUnion('key', [
   z.object({ key: z.literal('threshold'), threshold: thresholdSchema }),
-  z.object({ key: z.literal('lead-time'), days: nonNegative, businessDays: z.boolean() }),
+  z.object({
+    key: z.literal('lead-time'),
+    days: nonNegative,
+    businessDays: z.boolean(),
+    /** Given with the lead time: `set T4 lead time 3 business days cutoff 14:00`. */
+    cutoffHour: z.number().int().min(0).max(23).optional(),
+  }),
   /** An order placed after this local hour counts from the next day. */
   z.object({ key: z.literal('order-cutoff'), hour: z.number().int().min(0).max(23) }),
   /** ISO weekdays, 1 = Monday. */
