@@ -4,9 +4,11 @@
  * reference: header text 150, section text 3,000, 10 fields of 2,000, button text 75 and value 2,000, context
  * 10 elements, actions 25 elements).
  */
-import type { KnownBlock } from '@slack/bolt';
+import type { types } from '@slack/bolt';
 import { tableToText, toPlainText } from '../../bot/replies/plainText.js';
 import type { Action, Fact, Reply, Table } from '../../bot/replies/reply.js';
+
+type KnownBlock = types.KnownBlock;
 
 export const limits = {
   text: 3_900,
