@@ -9,7 +9,7 @@ export type OrderCalendar = Pick<
 >;
 
 const isWeekend = (day: DateTime) => day.weekday >= 6;
-const nextDay = (day: DateTime) => day.plus({ days: 1 }).startOf('day');
+const nextDay = (day: DateTime): DateTime => day.plus({ days: 1 }).startOf('day');
 
 /** The last moment of `day` at which an order still counts as placed that day. */
 export function cutoffOn(day: DateTime, calendar: OrderCalendar): DateTime {
@@ -22,7 +22,7 @@ export function cutoffOn(day: DateTime, calendar: OrderCalendar): DateTime {
 /** The local day (its start) on which a delivery ordered at `orderAt` (epoch ms) arrives. */
 export function arrivalDay(orderAt: number, calendar: OrderCalendar): DateTime {
   const placed = DateTime.fromMillis(orderAt, { zone: calendar.timeZone });
-  let day = placed.startOf('day');
+  let day: DateTime = placed.startOf('day');
   if (placed > cutoffOn(day, calendar)) day = nextDay(day);
   // A supplier counting business days handles a weekend order on Monday.
   if (calendar.businessDays) while (isWeekend(day)) day = nextDay(day);
