@@ -1,0 +1,216 @@
+import { describe, expect, it } from 'vitest';
+import { analyzeSeries, createRateEstimator, type TimedVolume } from './index.js';
+
+const DAY = 86_400_000;
+const HOUR = 3_600_000;
+
+/** Deterministic pseudo-random numbers (a linear congruential generator) and Box-Muller normals. */
+function normals(seed: number): () => number {
+  let s = seed >>> 0;
+  const uniform = () => {
+    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+    return (s + 0.5) / 4294967296;
+  };
+  return () => Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
+}
+
+interface Plan {
+  start: number;
+  step: number;
+  days: number;
+  rate: (t: number) => number;
+  shifts?: { at: number; volume: number }[];
+  noise?: number;
+  seed?: number;
+}
+
+/** True volume falls at `rate` L/day, jumps by each shift; readings add Gaussian noise. */
+function series(plan: Plan): TimedVolume[] {
+  const gauss = normals(plan.seed ?? 7);
+  const out: TimedVolume[] = [];
+  let v = plan.start;
+  const shifts = [...(plan.shifts ?? [])];
+  for (let t = 0; t <= plan.days * DAY; t += plan.step) {
+    if (t > 0) v -= (plan.rate(t) * plan.step) / DAY;
+    while (shifts.length > 0 && shifts[0]!.at <= t) v += shifts.shift()!.volume;
+    out.push({ time: t, volume: v + (plan.noise ?? 0) * gauss() });
+  }
+  return out;
+}
+
+describe('rate estimator on a steady dense series', () => {
+  const readings = series({ start: 9000, step: HOUR, days: 10, rate: () => 300, noise: 20 });
+  const { points, events, suspects } = analyzeSeries(readings, [], { capacity: 10_000 });
+
+  it('finds the consumption rate within 3% once a few days are in', () => {
+    for (const p of points.slice(5 * 24)) expect(Math.abs(p.rate - 300) / 300).toBeLessThan(0.03);
+  });
+
+  it('reports no events or suspects in clean steady use', () => {
+    expect(events).toEqual([]);
+    expect(suspects).toEqual([]);
+  });
+
+  it('gives a range around the rate, and says what it rests on', () => {
+    const last = points[points.length - 1]!;
+    expect(last.rateLow).toBeLessThan(last.rate);
+    expect(last.rateHigh).toBeGreaterThan(last.rate);
+    expect(last.readings).toBe(readings.length);
+    expect(last.basisDays).toBeCloseTo(10, 6);
+  });
+});
+
+describe('events', () => {
+  it('finds an unlogged delivery in dense data with its time and size', () => {
+    const readings = series({
+      start: 5000,
+      step: HOUR,
+      days: 8,
+      rate: () => 300,
+      noise: 15,
+      shifts: [{ at: 4 * DAY + 0.5 * HOUR, volume: 4000 }],
+    });
+    const { events, points } = analyzeSeries(readings, [], { capacity: 10_000 });
+    expect(events).toHaveLength(1);
+    const [delivery] = events;
+    expect(delivery!.type).toBe('delivery');
+    expect(delivery!.logged).toBe(false);
+    expect(Math.abs(delivery!.start - 4 * DAY)).toBeLessThanOrEqual(2 * HOUR);
+    expect(Math.abs(delivery!.volume - 4000)).toBeLessThan(120);
+    // The rate carries on through the delivery: the delivery is an event, not use.
+    expect(Math.abs(points[points.length - 1]!.rate - 300) / 300).toBeLessThan(0.05);
+  });
+
+  it('merges a logged delivery with the one seen in the data', () => {
+    const readings = series({
+      start: 5000,
+      step: HOUR,
+      days: 8,
+      rate: () => 300,
+      noise: 15,
+      shifts: [{ at: 4 * DAY + 0.5 * HOUR, volume: 4000 }],
+    });
+    const { events } = analyzeSeries(readings, [{ time: 4 * DAY + 3 * HOUR, volume: 3900 }], {
+      capacity: 10_000,
+    });
+    expect(events).toHaveLength(1);
+    expect(events[0]!.logged).toBe(true);
+  });
+
+  it('finds a bulk withdrawal on manual daily readings after the next reading confirms it', () => {
+    const readings = series({
+      start: 9000,
+      step: DAY,
+      days: 20,
+      rate: () => 200,
+      noise: 10,
+      shifts: [{ at: 10 * DAY, volume: -1500 }],
+    });
+    const { events, suspects } = analyzeSeries(readings, [], { capacity: 10_000 });
+    expect(events.map((e) => e.type)).toEqual(['withdrawal']);
+    expect(Math.abs(events[0]!.volume - 1500)).toBeLessThan(100);
+    expect(suspects).toEqual([]);
+  });
+
+  it('sees a pick-up on a filling tank and a negative rate', () => {
+    const readings = series({
+      start: 1000,
+      step: 2 * HOUR,
+      days: 12,
+      rate: () => -400,
+      noise: 10,
+      shifts: [{ at: 8 * DAY, volume: -3500 }],
+    });
+    const { events, points } = analyzeSeries(readings, [], { capacity: 8000, filling: true });
+    expect(events.map((e) => e.type)).toEqual(['pickup']);
+    expect(points[points.length - 1]!.rate).toBeLessThan(-380);
+  });
+});
+
+describe('suspect readings', () => {
+  it('flags a one-reading spike, and the point at the spike does not jump', () => {
+    const readings = series({ start: 9000, step: HOUR, days: 6, rate: () => 300, noise: 15 });
+    const spikeAt = 100;
+    readings[spikeAt] = { ...readings[spikeAt]!, volume: readings[spikeAt]!.volume + 2500 };
+    const { points, events, suspects } = analyzeSeries(readings, [], { capacity: 10_000 });
+    expect(events).toEqual([]);
+    expect(suspects.map((s) => s.time)).toEqual([readings[spikeAt]!.time]);
+    const before = points[spikeAt - 1]!;
+    const at = points[spikeAt]!;
+    expect(at.suspect).toMatch(/above the expected/);
+    expect(at.rate).toBe(before.rate);
+    expect(Math.abs(at.volume - (before.volume - 300 / 24))).toBeLessThan(5);
+  });
+
+  it('flags a typed-wrong manual reading that the next reading contradicts, with no event', () => {
+    const readings = series({ start: 9000, step: DAY, days: 20, rate: () => 200, noise: 10 });
+    readings[8] = { ...readings[8]!, volume: readings[8]!.volume * 0.4 };
+    const { events, suspects } = analyzeSeries(readings, [], { capacity: 10_000 });
+    expect(events).toEqual([]);
+    expect(suspects).toHaveLength(1);
+  });
+
+  it('flags a manual typo that looks like a delivery and takes the event back', () => {
+    const readings = series({ start: 4000, step: DAY, days: 15, rate: () => 200, noise: 10 });
+    readings[8] = { ...readings[8]!, volume: readings[8]!.volume + 3000 };
+    const { events, suspects, points } = analyzeSeries(readings, [], { capacity: 10_000 });
+    expect(events).toEqual([]);
+    expect(suspects.map((s) => s.time)).toEqual([readings[8]!.time]);
+    expect(Math.abs(points[points.length - 1]!.rate - 200)).toBeLessThan(20);
+  });
+
+  it('names a likely unit slip', () => {
+    const readings = series({ start: 9000, step: DAY, days: 12, rate: () => 200, noise: 5 });
+    readings[6] = { ...readings[6]!, volume: readings[6]!.volume / 2.54 };
+    const { suspects } = analyzeSeries(readings, [], { capacity: 10_000 });
+    expect(suspects[0]?.reason).toMatch(/centimetres typed for inches/);
+  });
+
+  it('refuses impossible readings with a reason and keeps its state', () => {
+    const clean = series({ start: 9000, step: HOUR, days: 3, rate: () => 300, noise: 10 });
+    const estimator = createRateEstimator({ capacity: 10_000 });
+    const reference = createRateEstimator({ capacity: 10_000 });
+    clean.slice(0, 40).forEach((r) => {
+      estimator.addReading(r.time, r.volume);
+      reference.addReading(r.time, r.volume);
+    });
+    const bad: [number, number, RegExp][] = [
+      [clean[40]!.time, Number.NaN, /not a number/],
+      [clean[40]!.time, -5, /below zero/],
+      [clean[40]!.time, 25_000, /above the tank capacity/],
+      [clean[10]!.time, 8000, /earlier/],
+      [Number.NaN, 8000, /not a valid instant/],
+    ];
+    for (const [time, volume, reason] of bad)
+      expect(estimator.addReading(time, volume).suspect).toMatch(reason);
+    const a = estimator.addReading(clean[40]!.time, clean[40]!.volume);
+    const b = reference.addReading(clean[40]!.time, clean[40]!.volume);
+    expect(a).toEqual(b);
+  });
+
+  it('gives a first-reading rejection a point that says nothing is known', () => {
+    const p = createRateEstimator().addReading(0, Number.POSITIVE_INFINITY);
+    expect(p.readings).toBe(0);
+    expect(p.suspect).toBeDefined();
+  });
+});
+
+describe('rate changes', () => {
+  it('re-learns a tripled rate within a day at hourly sampling and reports the change', () => {
+    const change = 8 * DAY;
+    const readings = series({
+      start: 9500,
+      step: HOUR,
+      days: 14,
+      rate: (t) => (t <= change ? 150 : 450),
+      noise: 10,
+    });
+    const { points, changes } = analyzeSeries(readings, [], { capacity: 10_000 });
+    const after = points.filter((p) => p.time >= change + DAY);
+    for (const p of after) expect(Math.abs(p.rate - 450) / 450).toBeLessThan(0.2);
+    expect(changes.length).toBeGreaterThanOrEqual(1);
+    expect(Math.abs(changes[0]!.at - change)).toBeLessThan(DAY);
+    expect(changes[0]!.from).toBeLessThan(200);
+    expect(changes[0]!.to).toBeGreaterThan(300);
+  });
+});

@@ -1,0 +1,140 @@
+// Laws: batch equals reading-by-reading, a JSON round trip mid-series resumes exactly, and a prefix of a
+// series gives the same points (causality). Random series mix drift, deliveries, spikes and odd gaps.
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import {
+  analyzeSeries,
+  createRateEstimator,
+  type RateEstimatorState,
+  restoreRateEstimator,
+} from './index.js';
+
+const HOUR = 3_600_000;
+
+const seriesArb = fc
+  .record({
+    start: fc.double({ min: 500, max: 9500, noNaN: true }),
+    rate: fc.double({ min: -300, max: 800, noNaN: true }),
+    steps: fc.array(
+      fc.record({
+        gapHours: fc.double({ min: 0, max: 72, noNaN: true }),
+        noise: fc.double({ min: -80, max: 80, noNaN: true }),
+        jump: fc.oneof(
+          fc.constant(0),
+          fc.constant(0),
+          fc.constant(0),
+          fc.double({ min: -4000, max: 5000, noNaN: true }),
+        ),
+      }),
+      { minLength: 1, maxLength: 120 },
+    ),
+    deliveries: fc.array(
+      fc.record({ at: fc.nat(120), volume: fc.double({ min: 1, max: 5000, noNaN: true }) }),
+      {
+        maxLength: 4,
+      },
+    ),
+    capacity: fc.option(fc.constant(10_000), { nil: undefined }),
+    filling: fc.boolean(),
+  })
+  .map(({ start, rate, steps, deliveries, capacity, filling }) => {
+    let t = Date.UTC(2026, 0, 5);
+    let v = start;
+    const readings = steps.map((s) => {
+      t += Math.round(s.gapHours * HOUR);
+      v = Math.max(0, v - (rate * s.gapHours) / 24 + s.jump);
+      return { time: t, volume: Math.max(0, v + s.noise) };
+    });
+    const logged = deliveries.map((d) => ({
+      time: readings[Math.min(d.at, readings.length - 1)]!.time - HOUR,
+      volume: d.volume,
+    }));
+    return { readings, logged, options: { capacity, filling } };
+  });
+
+/** Feeds readings and logged deliveries in the same merged order analyzeSeries uses. */
+function feed(
+  estimator: ReturnType<typeof createRateEstimator>,
+  readings: { time: number; volume: number }[],
+  logged: { time: number; volume: number }[],
+) {
+  const deliveries = [...logged].sort((a, b) => a.time - b.time);
+  let d = 0;
+  return readings.map((r) => {
+    while (d < deliveries.length && deliveries[d]!.time <= r.time) {
+      estimator.addDelivery(deliveries[d]!.time, deliveries[d]!.volume);
+      d++;
+    }
+    return estimator.addReading(r.time, r.volume);
+  });
+}
+
+describe('estimator laws', () => {
+  it('batch analysis equals reading-by-reading use', () => {
+    fc.assert(
+      fc.property(seriesArb, ({ readings, logged, options }) => {
+        const batch = analyzeSeries(readings, logged, options);
+        const estimator = createRateEstimator(options);
+        const points = feed(estimator, readings, logged);
+        expect(points).toEqual(batch.points);
+        const lastReading = readings[readings.length - 1]!.time;
+        const before = batch.events.filter((e) => e.start <= lastReading);
+        expect(estimator.events.filter((e) => e.start <= lastReading)).toEqual(before);
+        expect(estimator.changes).toEqual(batch.changes);
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('resumes exactly from JSON taken mid-series', () => {
+    fc.assert(
+      fc.property(seriesArb, fc.nat(), ({ readings, options }, cut) => {
+        const at = cut % readings.length;
+        const whole = analyzeSeries(readings, [], options).points;
+        const first = createRateEstimator(options);
+        feed(first, readings.slice(0, at), []);
+        const state = JSON.parse(JSON.stringify(first.toJSON())) as RateEstimatorState;
+        const resumed = restoreRateEstimator(state);
+        const rest = feed(resumed, readings.slice(at), []);
+        expect(rest).toEqual(whole.slice(at));
+        expect(resumed.toJSON()).toEqual(createRateEstimatorAfter(readings, options).toJSON());
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('is causal: a prefix of the series gives the same points', () => {
+    fc.assert(
+      fc.property(seriesArb, fc.nat(), ({ readings, options }, cut) => {
+        const n = 1 + (cut % readings.length);
+        const whole = analyzeSeries(readings, [], options).points;
+        expect(analyzeSeries(readings.slice(0, n), [], options).points).toEqual(whole.slice(0, n));
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('never returns a non-finite rate or volume for finite input', () => {
+    fc.assert(
+      fc.property(seriesArb, ({ readings, logged, options }) => {
+        for (const p of analyzeSeries(readings, logged, options).points) {
+          for (const x of [p.volume, p.rate, p.rateLow, p.rateHigh, p.rateSigma, p.basisDays]) {
+            expect(Number.isFinite(x)).toBe(true);
+          }
+          expect(p.rateLow).toBeLessThanOrEqual(p.rate);
+          expect(p.rateHigh).toBeGreaterThanOrEqual(p.rate);
+        }
+      }),
+      { numRuns: 150 },
+    );
+  });
+});
+
+function createRateEstimatorAfter(
+  readings: { time: number; volume: number }[],
+  options: { capacity?: number | undefined; filling: boolean },
+) {
+  const estimator = createRateEstimator(options);
+  feed(estimator, readings, []);
+  return estimator;
+}

@@ -1,0 +1,72 @@
+// The consumption-rate estimator: public entry points (see estimator.ts for the method and its sources).
+import { Estimator, initialState } from './estimator.js';
+import type {
+  RateChange,
+  RateEstimator,
+  RateEstimatorState,
+  RateOptions,
+  RatePoint,
+  SuspectReading,
+  TankEvent,
+  TimedVolume,
+} from './types.js';
+
+export type {
+  RateChange,
+  RateEstimator,
+  RateEstimatorState,
+  RateOptions,
+  RatePoint,
+  SuspectReading,
+  TankEvent,
+  TankEventType,
+  TimedVolume,
+} from './types.js';
+
+export function createRateEstimator(options?: RateOptions): RateEstimator {
+  return new Estimator(initialState(options));
+}
+
+/** Resumes an estimator from `toJSON()` output: the same future readings give the same points. */
+export function restoreRateEstimator(state: RateEstimatorState): RateEstimator {
+  return new Estimator(structuredClone(state));
+}
+
+export interface SeriesAnalysis {
+  points: RatePoint[];
+  events: TankEvent[];
+  changes: RateChange[];
+  suspects: SuspectReading[];
+}
+
+/**
+ * Batch over a series: readings and logged deliveries are merged in time order (a delivery logged at the
+ * same instant as a reading goes first) and fed one by one, so the result equals feeding them incrementally.
+ */
+export function analyzeSeries(
+  readings: readonly TimedVolume[],
+  deliveries: readonly TimedVolume[],
+  options?: RateOptions,
+): SeriesAnalysis {
+  const estimator = createRateEstimator(options);
+  const sortedReadings = [...readings].sort((a, b) => a.time - b.time);
+  const sortedDeliveries = [...deliveries].sort((a, b) => a.time - b.time);
+  const points: RatePoint[] = new Array(sortedReadings.length);
+  let d = 0;
+  for (let i = 0; i < sortedReadings.length; i++) {
+    const reading = sortedReadings[i]!;
+    while (d < sortedDeliveries.length && sortedDeliveries[d]!.time <= reading.time) {
+      estimator.addDelivery(sortedDeliveries[d]!.time, sortedDeliveries[d]!.volume);
+      d++;
+    }
+    points[i] = estimator.addReading(reading.time, reading.volume);
+  }
+  for (; d < sortedDeliveries.length; d++)
+    estimator.addDelivery(sortedDeliveries[d]!.time, sortedDeliveries[d]!.volume);
+  return {
+    points,
+    events: [...estimator.events],
+    changes: [...estimator.changes],
+    suspects: [...estimator.suspects],
+  };
+}

@@ -1,0 +1,41 @@
+// Building the RatePoint the estimator reports after each reading.
+import { DAY_MS, RATE_SIGMA_SCALE, Z80 } from './tuning.js';
+import type { RateEstimatorState, RatePoint } from './types.js';
+
+export function pointFrom(
+  s: RateEstimatorState,
+  time: number,
+  volume: number,
+  rateVar: number,
+  suspect: string | undefined,
+): RatePoint {
+  const sigma = Math.sqrt(rateVar) * RATE_SIGMA_SCALE;
+  const point: RatePoint = {
+    time,
+    volume,
+    rate: s.r,
+    rateLow: s.r - Z80 * sigma,
+    rateHigh: s.r + Z80 * sigma,
+    rateSigma: sigma,
+    readings: s.count - s.basisCount + 1,
+    basisDays: (time - s.basisStart) / DAY_MS,
+  };
+  if (suspect !== undefined) point.suspect = suspect;
+  return point;
+}
+
+/** The point for a reading that was not used: the last estimate, unchanged, with the reason. */
+export function rejectedPoint(last: RatePoint | null, time: number, reason: string): RatePoint {
+  if (last) return { ...last, time: Number.isFinite(time) ? time : last.time, suspect: reason };
+  return {
+    time: Number.isFinite(time) ? time : 0,
+    volume: 0,
+    rate: 0,
+    rateLow: 0,
+    rateHigh: 0,
+    rateSigma: 0,
+    suspect: reason,
+    readings: 0,
+    basisDays: 0,
+  };
+}

@@ -1,0 +1,25 @@
+// Tuning constants of the estimator, chosen by measurement on the accuracy bench (bench/accuracy).
+
+export const DAY_MS = 86_400_000;
+/** A reading this many predicted standard deviations off (and above the size floor) is not trusted at once. */
+export const EVENT_Z = 4;
+/** Smallest level shift counted as an event, as a fraction of capacity (or of the largest volume seen). */
+export const EVENT_MIN_FRACTION = 0.02;
+/** Huber clipping of innovations, in standard deviations. */
+export const HUBER_C = 2.5;
+/** Memory of the rate in days (the filter's time constant) and its floor in sampling intervals. */
+export const RATE_MEMORY_DAYS = 1.5;
+export const RATE_MEMORY_INTERVALS = 3;
+/** Two-sided CUSUM on standardised innovations (Page, 1954): allowance and alarm level. */
+export const CUSUM_K = 0.5;
+export const CUSUM_H = 8;
+/** Below this mean sampling interval a series is dense (a sensor), above it manual. */
+export const DENSE_INTERVAL_DAYS = 2 / 24;
+/** Deviant readings waited on before a level shift is accepted regardless. */
+export const MAX_PENDING = 8;
+/** z of a two-sided 80% normal interval (1.2816, standard normal table). */
+export const Z80 = 1.2815515655446004;
+/** Scale on the filter's rate standard error so the ~80% range covers about 80% (bench-calibrated). */
+export const RATE_SIGMA_SCALE = 1;
+/** A rate change must settle for this long before it is reported. */
+export const CHANGE_SETTLE_DAYS = 1;

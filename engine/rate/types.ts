@@ -1,0 +1,113 @@
+// The public shapes of the consumption-rate estimator (engine units: litres, epoch ms, litres/day).
+
+export interface RateOptions {
+  /** Tank capacity in litres: enables %-based thresholds and event size limits. */
+  capacity?: number;
+  /** A filling tank (waste, produced water, used oil): rises are use, drops are pick-ups. */
+  filling?: boolean;
+}
+
+export interface RatePoint {
+  time: number;
+  /** Filtered volume, litres. */
+  volume: number;
+  /** Consumption rate, litres/day, positive while emptying; an ~80% range and its standard error. */
+  rate: number;
+  rateLow: number;
+  rateHigh: number;
+  rateSigma: number;
+  /** Why this reading was not trusted (typo, unit slip, spike, not confirmed yet). */
+  suspect?: string;
+  /** How many readings, over how many days, the current rate rests on. */
+  readings: number;
+  basisDays: number;
+}
+
+export type TankEventType = 'delivery' | 'withdrawal' | 'pickup';
+
+export interface TankEvent {
+  type: TankEventType;
+  start: number;
+  end: number;
+  /** Litres moved, always positive. */
+  volume: number;
+  logged: boolean;
+}
+
+export interface RateChange {
+  at: number;
+  from: number;
+  to: number;
+}
+
+export interface SuspectReading {
+  time: number;
+  reason: string;
+}
+
+export interface RateEstimator {
+  addReading(time: number, volumeLitres: number): RatePoint;
+  /** A delivery someone logged (or a pick-up on a filling tank), litres. */
+  addDelivery(time: number, volumeLitres: number): void;
+  readonly events: readonly TankEvent[];
+  readonly changes: readonly RateChange[];
+  /** Readings found untrustworthy so far (confirmed spikes, typos, unit slips). */
+  readonly suspects: readonly SuspectReading[];
+  toJSON(): RateEstimatorState;
+}
+
+export interface TimedVolume {
+  time: number;
+  volume: number;
+}
+
+/** Everything the estimator knows, as plain JSON: restoring it resumes exactly. */
+export interface RateEstimatorState {
+  version: 1;
+  capacity: number | null;
+  filling: boolean;
+  /** Readings seen (valid ones). */
+  count: number;
+  /** Time of the last trusted reading (the filter's time), or null before the first. */
+  lastTime: number | null;
+  /** Filter state: volume (L), rate (L/day) and their covariance. */
+  v: number;
+  r: number;
+  p00: number;
+  p01: number;
+  p11: number;
+  /** Running mean of squared innovations (L^2) and of the sampling interval (days). */
+  innovationVar: number;
+  dtMean: number;
+  /** Largest volume seen: a capacity proxy when no capacity is given. */
+  scale: number;
+  cusumPos: number;
+  cusumNeg: number;
+  cusumPosStart: number;
+  cusumNegStart: number;
+  basisStart: number;
+  basisCount: number;
+  /** Deviant readings since the last trusted one, waiting for confirmation. */
+  pending: TimedVolume[];
+  /** Filter state before an event accepted at once, kept one reading in case it was a typo. */
+  undo: UndoState | null;
+  loggedPending: TimedVolume[];
+  changePending: { at: number; from: number; alarm: number; count: number } | null;
+  lastPoint: RatePoint | null;
+  events: TankEvent[];
+  changes: RateChange[];
+  suspects: SuspectReading[];
+}
+
+export interface UndoState {
+  time: number;
+  volume: number;
+  lastTime: number;
+  v: number;
+  r: number;
+  p00: number;
+  p01: number;
+  p11: number;
+  eventCount: number;
+  previousEvent: TankEvent | null;
+}
