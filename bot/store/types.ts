@@ -24,8 +24,13 @@ export interface Member {
   createdAt: number;
 }
 
-/** Per-tank planning settings, in the tank's volume unit (see the refill contract in cli-contract.md §5). */
+/**
+ * Per-tank planning settings: the keys of the refill contract (cli-contract.md §5) with volumes in litres, the
+ * engine's base unit, so they pass to engine/refill as they are; the team's zone is added at use.
+ */
 export interface TankSettings {
+  /** A tank that fills (waste, backwash): rises are use, and the plan is a pick-up before it is full. */
+  filling?: boolean;
   threshold?: { percent: number } | { volume: number } | { runwayDays: number };
   leadTimeDays?: number;
   businessDays?: boolean;

@@ -1,0 +1,227 @@
+import { runwayTo } from '../engine/forecast/runway.js';
+import { buildTank, type Tank as TankGeometry } from '../engine/geometry/index.js';
+import { analyzeSeries, type RatePoint, type TankEventType, type TimedVolume } from '../engine/rate/index.js';
+import { fromLitres, fromMetres, isVolumeUnit, toLitres } from '../engine/units/index.js';
+import { readingLevelMetres, readingLitres } from './reading-volume.js';
+import type { Store } from './store/index.js';
+import type { Delivery, Reading, Tank } from './store/types.js';
+
+const DAY_MS = 86_400_000;
+
+/** A figure with its ~80% range, in the tank's display units. */
+export interface Ranged {
+  value: number;
+  low: number;
+  high: number;
+}
+
+/** Everything a reply or a digest says about one tank, computed in one place from the raw readings. */
+export interface TankStatus {
+  tank: Tank;
+  /** The tank's own units (`units.length`, `units.volume` of its specification). */
+  lengthUnit: string;
+  volumeUnit: string;
+  filling: boolean;
+  capacity: number;
+  fullHeight: number;
+  latest?: {
+    readingId: number;
+    time: number;
+    /** As computed from the reading itself (not smoothed), display unit. */
+    volume: number;
+    /** 0..1 of capacity. */
+    fraction: number;
+    /** Level in the display length unit, when the reading gave a level or ullage. */
+    level?: number;
+    ageMs: number;
+    rawText: string;
+    /** The rate estimator did not trust this reading (a typo, unit slip or spike): why. */
+    suspect?: string;
+  };
+  /** The reading before the latest one, for "change since last reading". */
+  previous?: { time: number; volume: number };
+  /** Use per day (positive while emptying; a filling tank's rise is positive too), with its basis. */
+  rate?: Ranged & { readings: number; days: number };
+  /** Time to the target from `now`, in days, and the date it is reached. */
+  runway?: {
+    target: 'empty' | 'full' | 'threshold';
+    targetVolume: number;
+    days: number | null;
+    low: number | null;
+    high: number | null;
+    at: number | null;
+  };
+  threshold?: number;
+  safeFill: number;
+  overSafeFill: boolean;
+  events: { type: TankEventType; start: number; end: number; volume: number; logged: boolean }[];
+  /** Confirmed readings as volumes (display unit) in time order: the chart's history. */
+  history: { time: number; volume: number }[];
+  deliveries: { time: number; volume: number }[];
+  /** Readings left out because the current shape cannot hold them (e.g. after a shape correction). */
+  skipped: number;
+  /** Why no figures could be computed (an invalid stored specification), if so. */
+  problem?: string;
+}
+
+/** Common practice for liquids that expand: fill no higher than 90% unless the tank says otherwise. */
+const DEFAULT_SAFE_FILL_PERCENT = 90;
+
+function thresholdLitres(tank: Tank, geometry: TankGeometry): number | undefined {
+  const t = tank.settings.threshold;
+  if (!t) return undefined;
+  if ('percent' in t) return (t.percent / 100) * geometry.capacity;
+  if ('volume' in t) return t.volume;
+  return undefined;
+}
+
+interface Series {
+  readings: (TimedVolume & { row: Reading })[];
+  deliveries: TimedVolume[];
+  skipped: number;
+}
+
+/** Raw readings and deliveries to litres with the tank's current shape; readings it cannot hold are skipped. */
+export function seriesOf(
+  geometry: TankGeometry,
+  readings: readonly Reading[],
+  deliveries: readonly Delivery[],
+): Series {
+  const out: Series = { readings: [], deliveries: [], skipped: 0 };
+  for (const row of readings) {
+    const litres = readingLitres(geometry, row);
+    if (litres.ok) out.readings.push({ time: row.time, volume: litres.value, row });
+    else out.skipped++;
+  }
+  for (const d of deliveries) {
+    if (isVolumeUnit(d.unit)) out.deliveries.push({ time: d.time, volume: toLitres(d.volume, d.unit) });
+  }
+  return out;
+}
+
+/** The status of one tank of one team at `now`. */
+export function tankStatus(
+  store: Store,
+  teamId: string,
+  tankId: number,
+  now: number,
+): TankStatus | undefined {
+  const tank = store.tanks.byId(teamId, tankId);
+  if (!tank) return undefined;
+  const built = buildTank(tank.spec);
+  const filling = tank.settings.filling === true;
+  if (!built.ok) {
+    return {
+      tank,
+      lengthUnit: '',
+      volumeUnit: '',
+      filling,
+      capacity: Number.NaN,
+      fullHeight: Number.NaN,
+      safeFill: Number.NaN,
+      overSafeFill: false,
+      events: [],
+      history: [],
+      deliveries: [],
+      skipped: 0,
+      problem: `${tank.code}'s stored shape is not valid (${built.error}); an admin can add it again with the right dimensions.`,
+    };
+  }
+  const geometry = built.value;
+  const { length: lengthUnit, volume: volumeUnit } = geometry.spec.units;
+  const show = (litres: number) => fromLitres(litres, volumeUnit);
+  const series = seriesOf(
+    geometry,
+    store.readings.forTank(teamId, tankId),
+    store.deliveries.forTank(teamId, tankId),
+  );
+  const analysis = analyzeSeries(series.readings, series.deliveries, {
+    capacity: geometry.capacity,
+    filling,
+  });
+  const safeFillLitres =
+    ((tank.settings.safeFillPercent ?? DEFAULT_SAFE_FILL_PERCENT) / 100) * geometry.capacity;
+  const threshold = thresholdLitres(tank, geometry);
+
+  const status: TankStatus = {
+    tank,
+    lengthUnit,
+    volumeUnit,
+    filling,
+    capacity: show(geometry.capacity),
+    fullHeight: fromMetres(geometry.fullHeight, lengthUnit),
+    safeFill: show(safeFillLitres),
+    overSafeFill: false,
+    events: analysis.events.map((e) => ({ ...e, volume: show(e.volume) })),
+    history: series.readings.map((r) => ({ time: r.time, volume: show(r.volume) })),
+    deliveries: series.deliveries.map((d) => ({ time: d.time, volume: show(d.volume) })),
+    skipped: series.skipped,
+    ...(threshold !== undefined ? { threshold: show(threshold) } : {}),
+  };
+
+  const lastIndex = series.readings.length - 1;
+  const last = series.readings[lastIndex];
+  const point = analysis.points[lastIndex];
+  if (!last || !point) return status;
+  const level = readingLevelMetres(geometry, last.row);
+  status.latest = {
+    readingId: last.row.id,
+    time: last.time,
+    volume: show(last.volume),
+    fraction: last.volume / geometry.capacity,
+    ...(level !== undefined ? { level: fromMetres(level, lengthUnit) } : {}),
+    ageMs: now - last.time,
+    rawText: last.row.rawText,
+    ...(point.suspect ? { suspect: point.suspect } : {}),
+  };
+  status.overSafeFill = last.volume > safeFillLitres * (1 + 1e-9);
+  const before = series.readings[lastIndex - 1];
+  if (before) status.previous = { time: before.time, volume: show(before.volume) };
+  const trusted = lastTrustedPoint(analysis.points);
+  if (trusted) {
+    const sign = filling ? -1 : 1;
+    status.rate = {
+      value: show(sign * trusted.rate),
+      low: show(Math.min(sign * trusted.rateLow, sign * trusted.rateHigh)),
+      high: show(Math.max(sign * trusted.rateLow, sign * trusted.rateHigh)),
+      readings: trusted.readings,
+      days: trusted.basisDays,
+    };
+    status.runway = runwayFrom(trusted, geometry.capacity, safeFillLitres, threshold, filling, now, show);
+  }
+  return status;
+}
+
+/** The newest point the estimator trusted; a suspect reading must not move the figures. */
+function lastTrustedPoint(points: readonly RatePoint[]): RatePoint | undefined {
+  for (let i = points.length - 1; i >= 0; i--) {
+    const p = points[i]!;
+    if (!p.suspect) return p;
+  }
+  return points[points.length - 1];
+}
+
+function runwayFrom(
+  point: RatePoint,
+  capacity: number,
+  safeFill: number,
+  threshold: number | undefined,
+  filling: boolean,
+  now: number,
+  show: (litres: number) => number,
+): TankStatus['runway'] {
+  const target = threshold !== undefined ? 'threshold' : filling ? 'full' : 'empty';
+  const targetVolume = threshold ?? (filling ? Math.min(capacity, safeFill) : 0);
+  const r = runwayTo(point, { volume: targetVolume }, { filling, capacity });
+  // The engine counts from the reading; a person asks "from now".
+  const elapsed = Math.max(0, (now - point.time) / DAY_MS);
+  const fromNow = (d: number | null) => (d === null ? null : Math.max(0, d - elapsed));
+  return {
+    target,
+    targetVolume: show(targetVolume),
+    days: fromNow(r.days),
+    low: fromNow(r.daysLow),
+    high: fromNow(r.daysHigh),
+    at: r.runoutAt,
+  };
+}
