@@ -51,7 +51,7 @@ describe('tankStatus', () => {
   it('gives the same rate and runway as the engine computes directly', () => {
     const tank = store.tanks.add(TEAM, { code: 'T4', spec }, 'u1', T0);
     const levels = [60, 58.1, 56.3, 54.2, 52.3, 50.4, 48.6];
-    levels.forEach((level, i) => addLevel(tank.id, T0 + i * DAY, level));
+    for (const [i, level] of levels.entries()) addLevel(tank.id, T0 + i * DAY, level);
     const now = T0 + 6.5 * DAY;
     const status = tankStatus(store, TEAM, tank.id, now)!;
 
