@@ -5,6 +5,7 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { runwayTo } from '../engine/forecast/runway.js';
 import { buildTank } from '../engine/geometry/index.js';
 import { analyzeSeries } from '../engine/rate/index.js';
+import { planRefill } from '../engine/refill/planRefill.js';
 import { openStore, type Store } from './store/index.js';
 import { tankStatus } from './tank-status.js';
 
@@ -71,6 +72,22 @@ describe('tankStatus', () => {
     expect(status.runway?.days).toBeCloseTo(runway.days! - 0.5, 9);
     expect(status.runway?.at).toBe(runway.runoutAt);
     expect(status.rate!.value).toBeGreaterThan(0);
+    // The refill plan is engine/refill's, with the default 20% threshold and the team's zone.
+    const plan = planRefill({
+      now,
+      volume: point.volume,
+      lastReadingAt: point.time,
+      rate: point.rate,
+      rateSigma: point.rateSigma,
+      capacity: geometry.value.capacity,
+      filling: false,
+      settings: { threshold: { percent: 20 }, timeZone: 'UTC' },
+    });
+    if (!plan.ok) throw new Error(plan.error);
+    expect(status.refill?.orderBy).toBe(plan.value.orderBy);
+    expect(status.refill?.verdict).toBe(plan.value.verdict);
+    expect(status.refill?.quantity).toBeCloseTo(plan.value.quantity! / litresPerGal, 9);
+    expect(status.refill?.thresholdIsDefault).toBe(true);
   });
 
   it('recomputes history from the raw input when the shape is corrected', () => {

@@ -1,6 +1,7 @@
 import { runwayTo } from '../engine/forecast/runway.js';
 import { buildTank, type Tank as TankGeometry } from '../engine/geometry/index.js';
 import { analyzeSeries, type RatePoint, type TankEventType, type TimedVolume } from '../engine/rate/index.js';
+import { planRefill, type RefillPlan } from '../engine/refill/planRefill.js';
 import { fromLitres, fromMetres, isVolumeUnit, toLitres } from '../engine/units/index.js';
 import { readingLevelMetres, readingLitres } from './reading-volume.js';
 import type { Store } from './store/index.js';
@@ -40,8 +41,11 @@ export interface TankStatus {
   };
   /** The reading before the latest one, for "change since last reading". */
   previous?: { time: number; volume: number };
-  /** Use per day (positive while emptying; a filling tank's rise is positive too), with its basis. */
-  rate?: Ranged & { readings: number; days: number };
+  /**
+   * Use per day (positive while emptying; a filling tank's rise is positive too), with its basis, and the
+   * smoothed volume at the reading it rests on (the forecast starts there).
+   */
+  rate?: Ranged & { readings: number; days: number; at: number; volume: number };
   /** Time to the target from `now`, in days, and the date it is reached. */
   runway?: {
     target: 'empty' | 'full' | 'threshold';
@@ -52,6 +56,10 @@ export interface TankStatus {
     at: number | null;
   };
   threshold?: number;
+  /** engine/refill's plan with volumes in the display unit; absent before two readings or when it cannot plan. */
+  refill?: RefillPlan & { thresholdIsDefault: boolean };
+  /** Why no refill plan could be made, when there are readings but no plan. */
+  refillProblem?: string;
   safeFill: number;
   overSafeFill: boolean;
   events: { type: TankEventType; start: number; end: number; volume: number; logged: boolean }[];
@@ -186,10 +194,57 @@ export function tankStatus(
       high: show(Math.max(sign * trusted.rateLow, sign * trusted.rateHigh)),
       readings: trusted.readings,
       days: trusted.basisDays,
+      at: trusted.time,
+      volume: show(trusted.volume),
     };
     status.runway = runwayFrom(trusted, geometry.capacity, safeFillLitres, threshold, filling, now, show);
+    const timeZone = store.teams.get(teamId)?.timeZone ?? 'UTC';
+    const plan = refillPlan(tank, trusted, geometry.capacity, filling, Math.max(now, trusted.time), timeZone);
+    if (plan.ok) status.refill = { ...plan.value, ...inDisplayUnits(plan.value, show) };
+    else status.refillProblem = plan.error;
   }
   return status;
+}
+
+/** Thresholds when a tank has none of its own: order at 20% of capacity, or book a pick-up before the safe fill. */
+const DEFAULT_THRESHOLD_PERCENT = 20;
+
+function refillPlan(
+  tank: Tank,
+  point: RatePoint,
+  capacity: number,
+  filling: boolean,
+  now: number,
+  timeZone: string,
+) {
+  const { filling: _filling, ...settings } = tank.settings;
+  const threshold = settings.threshold ?? {
+    percent: filling ? (settings.safeFillPercent ?? DEFAULT_SAFE_FILL_PERCENT) : DEFAULT_THRESHOLD_PERCENT,
+  };
+  const plan = planRefill({
+    now,
+    volume: point.volume,
+    lastReadingAt: point.time,
+    rate: point.rate,
+    rateSigma: point.rateSigma,
+    capacity,
+    filling,
+    settings: { ...settings, threshold, timeZone },
+  });
+  return plan.ok
+    ? { ok: true as const, value: { ...plan.value, thresholdIsDefault: !settings.threshold } }
+    : plan;
+}
+
+function inDisplayUnits(plan: RefillPlan, show: (litres: number) => number): Partial<RefillPlan> {
+  return {
+    quantity: plan.quantity === null ? null : show(plan.quantity),
+    expectedVolumeOnArrival: show(plan.expectedVolumeOnArrival),
+    reorderPoint: show(plan.reorderPoint),
+    safetyStock: show(plan.safetyStock),
+    thresholdVolume: show(plan.thresholdVolume),
+    safeFillVolume: plan.safeFillVolume === null ? null : show(plan.safeFillVolume),
+  };
 }
 
 /** The newest point the estimator trusted; a suspect reading must not move the figures. */
