@@ -1,0 +1,43 @@
+import { fail, ok, type Result } from '../../engine/result.js';
+import { DAY_SETS, WEEKDAYS } from './words.js';
+
+/** "tue,thu", "mon-fri", "weekdays", "tuesday and thursday" -> ISO weekdays (1 = Monday), sorted, unique. */
+export function readWeekdays(text: string): Result<number[]> {
+  const t = text.trim().toLowerCase();
+  const set = DAY_SETS[t];
+  if (set) return ok([...set]);
+  const days = new Set<number>();
+  for (const part of t.split(/\s*(?:,|\/|\band\b|&|\s)\s*/).filter((p) => p !== '')) {
+    const range = /^([a-z]+)-([a-z]+)$/.exec(part);
+    if (range) {
+      const from = WEEKDAYS[range[1] ?? ''];
+      const to = WEEKDAYS[range[2] ?? ''];
+      if (!from || !to) return fail(`"${part}" is not a range of days; write it like mon-fri.`);
+      for (let d = from; ; d = (d % 7) + 1) {
+        days.add(d);
+        if (d === to) break;
+      }
+      continue;
+    }
+    const day = WEEKDAYS[part];
+    if (!day) return fail(`"${part}" is not a day; write days like mon,wed,fri or weekdays.`);
+    days.add(day);
+  }
+  if (days.size === 0) return fail('Give at least one day, e.g. tue,thu or weekdays.');
+  return ok([...days].sort((a, b) => a - b));
+}
+
+/** "12", "noon", "14:00", "2pm" -> an hour of the day 0-23 (minutes must be :00). */
+export function readHourOfDay(text: string): Result<number> {
+  const t = text.trim().toLowerCase();
+  if (t === 'noon' || t === 'midday') return ok(12);
+  if (t === 'midnight') return ok(0);
+  const m = /^(\d{1,2})(?::00)?\s*([ap])?\.?m?\.?$/.exec(t);
+  let hour = Number(m?.[1]);
+  if (m?.[2] && (hour < 1 || hour > 12)) return fail(`"${text}" is not an hour; write it like 14:00 or 2pm.`);
+  if (m?.[2] === 'p' && hour < 12) hour += 12;
+  if (m?.[2] === 'a' && hour === 12) hour = 0;
+  if (!m || !(hour >= 0 && hour <= 23))
+    return fail(`"${text}" is not an hour of the day; write it like 14:00, 2pm or noon.`);
+  return ok(hour);
+}

@@ -1,0 +1,23 @@
+import { fail, ok, type Result } from '../../engine/result.js';
+import type { CommandOf, ParseContext } from './command.js';
+import { parseMeasurement } from './measurement.js';
+import { resolvePastTime, splitStatedTime } from './statedTime.js';
+
+/**
+ * A reading after its tank name: "60in", "5' 2\"", "48%", "410 gal", "ullage 14in", each with an optional
+ * time ("at 7:30", "yesterday 4pm", "at 2026-11-02 07:30").
+ */
+export function parseReading(
+  tank: string,
+  rest: string,
+  raw: string,
+  context: ParseContext,
+): Result<CommandOf<'reading'>> {
+  const { body, timeText } = splitStatedTime(rest);
+  const measurement = parseMeasurement(body);
+  if (!measurement.ok) return fail(`${tank}: ${measurement.error}`);
+  if (timeText === undefined) return ok({ type: 'reading', tank, measurement: measurement.value, raw });
+  const time = resolvePastTime(timeText, context);
+  if (!time.ok) return time;
+  return ok({ type: 'reading', tank, measurement: measurement.value, time: time.value, raw });
+}

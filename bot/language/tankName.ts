@@ -1,0 +1,59 @@
+import { closest, distance } from 'fastest-levenshtein';
+import { fail, ok, type Result } from '../../engine/result.js';
+
+/** How a name is written in a message: letters, digits and a few joiners, at most 64 characters. */
+const TANK_NAME_PATTERN = /^[\p{L}\p{N}][\p{L}\p{N}_.\-/#]{0,63}$/u;
+
+export const isTankNameShaped = (word: string): boolean => TANK_NAME_PATTERN.test(word);
+
+/** The team's nearest tank name to a word, when one is close enough to be a likely typo. */
+export function nearestTankName(word: string, tankNames: readonly string[]): string | undefined {
+  if (tankNames.length === 0) return undefined;
+  const lower = word.toLowerCase();
+  const best = closest(
+    lower,
+    tankNames.map((n) => n.toLowerCase()),
+  );
+  const limit = Math.max(2, Math.floor(lower.length / 3));
+  if (distance(lower, best) > limit) return undefined;
+  return tankNames.find((n) => n.toLowerCase() === best);
+}
+
+/**
+ * The longest known tank name (case-insensitive, words separated by spaces) that starts `text`, so names
+ * with spaces ("North Yard 2") work; returns the team's spelling and the rest of the text.
+ */
+export function matchTankPrefix(
+  text: string,
+  tankNames: readonly string[],
+): { tank: string; rest: string } | undefined {
+  const lower = text.toLowerCase();
+  let found: { tank: string; rest: string } | undefined;
+  for (const name of tankNames) {
+    const n = name.toLowerCase();
+    if (!lower.startsWith(n)) continue;
+    const next = text.charAt(n.length);
+    if (next !== '' && !/[\s?+,:]/.test(next)) continue;
+    if (!found || name.length > found.tank.length) found = { tank: name, rest: text.slice(n.length).trim() };
+  }
+  return found;
+}
+
+/** A known tank by exact (case-insensitive) name, or an error that suggests the nearest one. */
+export function resolveTankName(word: string, tankNames: readonly string[]): Result<string> {
+  const exact = tankNames.find((n) => n.toLowerCase() === word.toLowerCase());
+  if (exact) return ok(exact);
+  return fail(unknownTankMessage(word, tankNames));
+}
+
+export function unknownTankMessage(word: string, tankNames: readonly string[]): string {
+  const shown = word.length > 40 ? `${word.slice(0, 40)}…` : word;
+  if (tankNames.length === 0) {
+    return `There is no tank named "${shown}" yet: add it first, e.g. \`add tank ${isTankNameShaped(word) ? word : 'T4'} vertical-cylinder diameter=48in length=72in unit=gal\`.`;
+  }
+  const near = nearestTankName(word, tankNames);
+  if (near)
+    return `There is no tank named "${shown}". Did you mean ${near}? Send the message again with ${near}.`;
+  const listed = tankNames.slice(0, 8).join(', ') + (tankNames.length > 8 ? ', …' : '');
+  return `There is no tank named "${shown}". Use one of your tanks (${listed}), or add it with \`add tank ${isTankNameShaped(word) ? word : 'NAME'} ...\`.`;
+}
