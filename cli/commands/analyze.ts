@@ -1,0 +1,248 @@
+// `tankrunway analyze READINGS.csv`: the consumption rate, runway and events of a readings series
+// (cli-contract section 4). `buildAnalyzeOutput` is the one place the JSON is assembled, so options such as a
+// refill plan can add their part there.
+import { readFile } from 'node:fs/promises';
+import { parseArgs } from 'node:util';
+import { runwayTo } from '../../engine/forecast/runway.js';
+import { buildTank, type Tank, volumeAtLevel } from '../../engine/geometry/index.js';
+import { analyzeSeries, type SeriesAnalysis } from '../../engine/rate/index.js';
+import { fail, ok, type Result } from '../../engine/result.js';
+import { fromLitres, isVolumeUnit, toLitres, toMetres, type VolumeUnit } from '../../engine/units/index.js';
+import { type CliCommand, type CliIo, UsageError } from '../io.js';
+import { parseReadingsCsv, type ReadingColumn, type ReadingsTable } from '../readings-csv.js';
+
+export const analyzeArgOptions = {
+  tank: { type: 'string' },
+  'volume-unit': { type: 'string' },
+  capacity: { type: 'string' },
+  target: { type: 'string' },
+  'target-percent': { type: 'string' },
+  filling: { type: 'boolean', default: false },
+  json: { type: 'boolean', default: false },
+  help: { type: 'boolean', short: 'h', default: false },
+} as const;
+
+export interface AnalyzeOptions {
+  volumeUnit: VolumeUnit;
+  /** Litres, from the tank or --capacity. */
+  capacity: number | null;
+  /** Litres: the runway runs down to it (up to it on a filling tank); null = no runway. */
+  target: number | null;
+  filling: boolean;
+}
+
+export interface AnalyzePoint {
+  time: string;
+  volume: number;
+  rate: number;
+  rateLow: number;
+  rateHigh: number;
+  runwayDays: number | null;
+  runwayDaysLow: number | null;
+  runwayDaysHigh: number | null;
+  runoutAt: string | null;
+}
+
+export interface AnalyzeOutput {
+  volumeUnit: VolumeUnit;
+  points: AnalyzePoint[];
+  events: { type: string; start: string; end: string; volume: number; logged: boolean }[];
+  changes: { at: string; from: number; to: number }[];
+  suspect: { time: string; reason: string }[];
+}
+
+/** ISO 8601 in UTC, without a ".000" when the instant is on a whole second. */
+export const isoTime = (ms: number): string => new Date(ms).toISOString().replace('.000Z', 'Z');
+const tidy = (x: number): number => Number(x.toPrecision(10));
+
+/** The analysis JSON from readings already in litres: points, events, changes and suspect readings. */
+export function buildAnalyzeOutput(
+  table: Pick<ReadingsTable, 'readings' | 'deliveries'>,
+  options: AnalyzeOptions,
+) {
+  const rateOptions = {
+    filling: options.filling,
+    ...(options.capacity !== null ? { capacity: options.capacity } : {}),
+  };
+  const analysis = analyzeSeries(table.readings, table.deliveries, rateOptions);
+  return { analysis, output: outputFrom(analysis, options) };
+}
+
+function outputFrom(analysis: SeriesAnalysis, options: AnalyzeOptions): AnalyzeOutput {
+  const unit = options.volumeUnit;
+  const out = (litres: number) => tidy(fromLitres(litres, unit));
+  const days = (d: number | null) => (d === null ? null : tidy(d));
+  const points = analysis.points.map((p): AnalyzePoint => {
+    const runway =
+      options.target === null
+        ? { days: null, daysLow: null, daysHigh: null, runoutAt: null }
+        : runwayTo(p, { volume: options.target }, { filling: options.filling });
+    return {
+      time: isoTime(p.time),
+      volume: out(p.volume),
+      rate: out(p.rate),
+      rateLow: out(p.rateLow),
+      rateHigh: out(p.rateHigh),
+      runwayDays: days(runway.days),
+      runwayDaysLow: days(runway.daysLow),
+      runwayDaysHigh: days(runway.daysHigh),
+      runoutAt: runway.runoutAt === null ? null : isoTime(Math.round(runway.runoutAt)),
+    };
+  });
+  // Readings still waiting for confirmation at the end are untrusted too.
+  const trailing: { time: number; reason: string }[] = [];
+  for (let i = analysis.points.length - 1; i >= 0 && analysis.points[i]!.suspect !== undefined; i--) {
+    trailing.unshift({ time: analysis.points[i]!.time, reason: analysis.points[i]!.suspect! });
+  }
+  return {
+    volumeUnit: unit,
+    points,
+    events: analysis.events.map((e) => ({
+      type: e.type,
+      start: isoTime(Math.round(e.start)),
+      end: isoTime(Math.round(e.end)),
+      volume: out(e.volume),
+      logged: e.logged,
+    })),
+    changes: analysis.changes.map((c) => ({ at: isoTime(c.at), from: out(c.from), to: out(c.to) })),
+    suspect: [...analysis.suspects, ...trailing].map((s) => ({ time: isoTime(s.time), reason: s.reason })),
+  };
+}
+
+function positiveNumber(text: string | undefined, option: string): number | undefined {
+  if (text === undefined) return undefined;
+  const n = Number(text);
+  if (text.trim() === '' || !Number.isFinite(n) || n < 0) {
+    throw new UsageError(`--${option} "${text}" must be a number of zero or more`);
+  }
+  return n;
+}
+
+async function readTank(path: string): Promise<Tank> {
+  let json: unknown;
+  try {
+    json = JSON.parse(await readFile(path, 'utf8'));
+  } catch (error) {
+    throw new UsageError(
+      `cannot read the tank file ${path}: ${error instanceof Error ? error.message : String(error)}`,
+    );
+  }
+  const tank = buildTank(json);
+  if (!tank.ok) throw new UsageError(`tank file ${path}: ${tank.error}`);
+  return tank.value;
+}
+
+type ArgValues = {
+  tank?: string;
+  'volume-unit'?: string;
+  capacity?: string;
+  target?: string;
+  'target-percent'?: string;
+  filling?: boolean;
+};
+
+/** Options from the command line (and the tank file); throws UsageError for what the user must fix. */
+export function resolveAnalyzeOptions(values: ArgValues, tank: Tank | null): AnalyzeOptions {
+  const unitText = values['volume-unit'];
+  if (unitText !== undefined && !isVolumeUnit(unitText)) {
+    throw new UsageError(`--volume-unit "${unitText}" is not one of L, m3, gal, impgal, bbl, ft3, in3`);
+  }
+  const volumeUnit: VolumeUnit = unitText ?? tank?.spec.units.volume ?? 'L';
+  const capacityGiven = positiveNumber(values.capacity, 'capacity');
+  const capacity =
+    capacityGiven !== undefined ? toLitres(capacityGiven, volumeUnit) : (tank?.capacity ?? null);
+  if (capacity !== null && !(capacity > 0)) throw new UsageError('--capacity must be above zero');
+  const filling = values.filling === true;
+  const targetGiven = positiveNumber(values.target, 'target');
+  const percent = positiveNumber(values['target-percent'], 'target-percent');
+  if (targetGiven !== undefined && percent !== undefined) {
+    throw new UsageError('give --target or --target-percent, not both');
+  }
+  let target: number | null = filling ? capacity : 0;
+  if (targetGiven !== undefined) target = toLitres(targetGiven, volumeUnit);
+  if (percent !== undefined) {
+    if (capacity === null) throw new UsageError('--target-percent needs --capacity or --tank');
+    if (percent > 100) throw new UsageError('--target-percent must be between 0 and 100');
+    target = (capacity * percent) / 100;
+  }
+  return { volumeUnit, capacity, target, filling };
+}
+
+/** Converts a reading in its column into litres for this tank and these options. */
+export function readingConverter(tank: Tank | null, options: AnalyzeOptions) {
+  return (column: ReadingColumn, value: number): Result<number> => {
+    if (value < 0) return fail(`${column} ${value} is below zero`);
+    if (column === 'volume') return ok(toLitres(value, options.volumeUnit));
+    if (column === 'percent') {
+      if (value > 100) return fail(`percent ${value} is above 100`);
+      return ok(((options.capacity ?? 0) * value) / 100);
+    }
+    if (!tank) return fail('a level needs --tank');
+    return volumeAtLevel(tank, toMetres(value, tank.spec.units.length));
+  };
+}
+
+/** Reads the arguments and the CSV; reports skipped rows on stderr. Shared with options built on analyze. */
+export async function loadAnalysisInput(argv: string[], io: CliIo) {
+  const { values, positionals } = parseArgs({
+    args: argv,
+    options: analyzeArgOptions,
+    allowPositionals: true,
+  });
+  if (positionals.length !== 1)
+    throw new UsageError('give one readings CSV file: tankrunway analyze READINGS.csv');
+  const tank = values.tank !== undefined ? await readTank(values.tank) : null;
+  const options = resolveAnalyzeOptions(values, tank);
+  const file = positionals[0]!;
+  let text: string;
+  try {
+    text = await readFile(file, 'utf8');
+  } catch (error) {
+    throw new UsageError(`cannot read ${file}: ${error instanceof Error ? error.message : String(error)}`);
+  }
+  const table = parseReadingsCsv(text, readingConverter(tank, options), (v) =>
+    toLitres(v, options.volumeUnit),
+  );
+  if (!table.ok) throw new UsageError(`${file}: ${table.error}`);
+  if (table.value.column === 'level' && !tank) throw new UsageError('a "level" column needs --tank FILE');
+  if (table.value.column === 'percent' && options.capacity === null) {
+    throw new UsageError('a "percent" column needs --tank FILE or --capacity');
+  }
+  for (const p of table.value.problems) io.stderr.write(`${file}:${p.line}: skipped: ${p.reason}\n`);
+  return { values, options, table: table.value };
+}
+
+function summary(output: AnalyzeOutput): string {
+  const last = output.points[output.points.length - 1];
+  if (!last) return 'no valid readings\n';
+  const u = output.volumeUnit;
+  const runway =
+    last.runwayDays === null
+      ? 'no runway (not emptying toward the target)'
+      : `runway ${last.runwayDays.toFixed(1)} days (${last.runwayDaysLow?.toFixed(1) ?? '?'}-${last.runwayDaysHigh?.toFixed(1) ?? 'open'})`;
+  return [
+    `${output.points.length} readings to ${last.time}: volume ${last.volume.toFixed(1)} ${u}`,
+    `rate ${last.rate.toFixed(2)} ${u}/day (${last.rateLow.toFixed(2)} to ${last.rateHigh.toFixed(2)}, ~80%)`,
+    runway,
+    `${output.events.length} events, ${output.suspect.length} suspect readings`,
+    '',
+  ].join('\n');
+}
+
+export const analyzeCommand: CliCommand = {
+  name: 'analyze',
+  summary:
+    'rate, runway and events of a readings CSV: FILE [--tank FILE] [--volume-unit U] [--target N] --json',
+  async run(argv, io) {
+    if (argv.includes('--help') || argv.includes('-h')) {
+      io.stdout.write(
+        'usage: tankrunway analyze READINGS.csv [--tank FILE] [--volume-unit U] [--capacity N] [--target N | --target-percent P] [--filling] [--json]\n',
+      );
+      return 0;
+    }
+    const { values, options, table } = await loadAnalysisInput(argv, io);
+    const { output } = buildAnalyzeOutput(table, options);
+    io.stdout.write(values.json ? `${JSON.stringify(output)}\n` : summary(output));
+    return 0;
+  },
+};

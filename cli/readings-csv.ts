@@ -1,0 +1,123 @@
+// Reads the readings CSV of `tankrunway analyze` (cli-contract section 4): a header, then one reading a line.
+// Bad rows are reported with their line number and skipped; the rest go on.
+
+import type { TimedVolume } from '../engine/rate/index.js';
+import { fail, ok, type Result } from '../engine/result.js';
+
+export type ReadingColumn = 'volume' | 'level' | 'percent';
+
+export interface RowProblem {
+  line: number;
+  reason: string;
+}
+
+export interface ReadingsTable {
+  column: ReadingColumn;
+  /** Litres, sorted by time, one per instant. */
+  readings: TimedVolume[];
+  /** Logged deliveries, litres, sorted by time. */
+  deliveries: TimedVolume[];
+  problems: RowProblem[];
+}
+
+/** Turns a reading in its column's unit into litres, or says why it cannot. */
+export type ToLitres = (column: ReadingColumn, value: number) => Result<number>;
+/** Turns a logged delivery in the volume unit into litres. */
+export type DeliveredToLitres = (value: number) => number;
+
+// ISO 8601 date-time with a UTC offset or Z (seconds and fractions optional).
+const ISO_INSTANT = /^\d{4}-\d{2}-\d{2}[T ]\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}(:?\d{2})?)$/i;
+
+export function parseInstant(text: string): number | null {
+  if (!ISO_INSTANT.test(text)) return null;
+  const ms = Date.parse(text.replace(' ', 'T').replace(/([+-]\d{2})$/, '$1:00'));
+  return Number.isFinite(ms) ? ms : null;
+}
+
+function parseNumber(text: string): number | null {
+  if (text === '' || !/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(text)) return null;
+  const n = Number(text);
+  return Number.isFinite(n) ? n : null;
+}
+
+const unquote = (cell: string) =>
+  cell
+    .trim()
+    .replace(/^"(.*)"$/, '$1')
+    .trim();
+
+/** Parses the whole CSV text; a header problem is an error, a row problem is reported and skipped. */
+export function parseReadingsCsv(
+  text: string,
+  toLitres: ToLitres,
+  deliveredToLitres: DeliveredToLitres,
+): Result<ReadingsTable> {
+  const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
+  const header = (lines[0] ?? '').split(',').map((h) => unquote(h).toLowerCase());
+  const timeAt = header.indexOf('time');
+  if (timeAt < 0) return fail('the CSV header needs a "time" column (ISO 8601 with an offset or Z)');
+  const present = (['volume', 'level', 'percent'] as const).filter((c) => header.includes(c));
+  if (present.length !== 1) {
+    return fail('the CSV header needs exactly one of the columns "volume", "level" or "percent"');
+  }
+  const column = present[0]!;
+  const valueAt = header.indexOf(column);
+  const deliveredAt = header.indexOf('delivered');
+
+  const problems: RowProblem[] = [];
+  const byTime = new Map<number, { volume: number; line: number }>();
+  const deliveries: TimedVolume[] = [];
+  for (let i = 1; i < lines.length; i++) {
+    const line = i + 1;
+    const raw = lines[i]!;
+    if (raw.trim() === '') continue;
+    const cells = raw.split(',').map(unquote);
+    const timeText = cells[timeAt] ?? '';
+    const time = parseInstant(timeText);
+    if (time === null) {
+      problems.push({ line, reason: `"${timeText}" is not an ISO 8601 time with an offset or Z` });
+      continue;
+    }
+    const valueText = cells[valueAt] ?? '';
+    const deliveredText = deliveredAt >= 0 ? (cells[deliveredAt] ?? '') : '';
+    if (valueText === '' && deliveredText === '') {
+      problems.push({ line, reason: `no ${column} and no delivered volume` });
+      continue;
+    }
+    if (deliveredText !== '') {
+      const delivered = parseNumber(deliveredText);
+      if (delivered === null || delivered <= 0) {
+        problems.push({ line, reason: `delivered "${deliveredText}" is not a positive number` });
+        continue;
+      }
+      deliveries.push({ time, volume: deliveredToLitres(delivered) });
+      if (valueText === '') continue;
+    }
+    const value = parseNumber(valueText);
+    if (value === null) {
+      problems.push({ line, reason: `${column} "${valueText}" is not a number` });
+      continue;
+    }
+    const litres = toLitres(column, value);
+    if (!litres.ok) {
+      problems.push({ line, reason: litres.error });
+      continue;
+    }
+    const earlier = byTime.get(time);
+    if (earlier) {
+      if (earlier.volume !== litres.value) {
+        problems.push({
+          line,
+          reason: `a second reading at ${timeText} (line ${earlier.line} already has one); kept the first`,
+        });
+      }
+      continue;
+    }
+    byTime.set(time, { volume: litres.value, line });
+  }
+  const readings = [...byTime.entries()]
+    .map(([time, r]) => ({ time, volume: r.volume }))
+    .sort((a, b) => a.time - b.time);
+  deliveries.sort((a, b) => a.time - b.time);
+  return ok({ column, readings, deliveries, problems });
+}
