@@ -17,8 +17,18 @@ async function run(args: string[]) {
   let stdout = '';
   let stderr = '';
   const code = await main(args, {
-    stdout: { write: (s: string) => ((stdout += s), true) },
-    stderr: { write: (s: string) => ((stderr += s), true) },
+    stdout: {
+      write: (text: string) => {
+        stdout += text;
+        return true;
+      },
+    },
+    stderr: {
+      write: (text: string) => {
+        stderr += text;
+        return true;
+      },
+    },
     stdin: new PassThrough(),
   });
   return { code, stdout, stderr };
