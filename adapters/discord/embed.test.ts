@@ -1,0 +1,95 @@
+import { describe, expect, it } from 'vitest';
+import type { Reply } from '../../bot/replies/reply.js';
+import { ACTION_PREFIX, actionCommand, actionRows, KIND_COLORS, LIMITS, replyEmbed } from './embed.js';
+
+const answer: Reply = {
+  kind: 'answer',
+  visibility: 'channel',
+  headline: 'T4: 412 gal, about 9 days left',
+  facts: [
+    { label: 'Volume', value: '412 gal (48%)' },
+    { label: 'Use rate', value: '12.4 gal/day (10.9-13.8)' },
+  ],
+  table: { columns: ['Tank', 'Runway'], rows: [['T4', '9 days']] },
+  caution: 'Fuel is flammable. Follow local codes.',
+  actions: [
+    { label: 'Undo', command: 'undo', style: 'danger' },
+    { label: 'Ask', command: 'T4?' },
+  ],
+};
+
+const size = (e: ReturnType<typeof replyEmbed>) =>
+  (e.title?.length ?? 0) +
+  (e.description?.length ?? 0) +
+  (e.fields ?? []).reduce((n, f) => n + f.name.length + f.value.length, 0);
+
+describe('replyEmbed', () => {
+  it('maps headline, facts, table, caution and chart', () => {
+    const e = replyEmbed(answer, 'level-chart-1.png');
+    expect(e.title).toBe('T4: 412 gal, about 9 days left');
+    expect(e.color).toBe(KIND_COLORS.answer);
+    expect(e.fields?.map((f) => f.name)).toEqual(['Volume', 'Use rate', 'Caution']);
+    expect(e.description).toBe('```\nTank  Runway\n----  ------\nT4    9 days\n```');
+    expect(e.image).toEqual({ url: 'attachment://level-chart-1.png' });
+  });
+
+  it('stays within Discord embed limits for a huge reply', () => {
+    const huge: Reply = {
+      kind: 'digest',
+      visibility: 'channel',
+      headline: 'x'.repeat(400),
+      facts: Array.from({ length: 40 }, (_, i) => ({ label: `L${i}`.repeat(100), value: 'v'.repeat(2000) })),
+      table: {
+        columns: ['Tank', 'Runway'],
+        rows: Array.from({ length: 500 }, (_, i) => [`T${i}`, `${i} days`]),
+      },
+    };
+    const e = replyEmbed(huge);
+    expect(e.title?.length).toBeLessThanOrEqual(LIMITS.title);
+    expect(e.fields?.length).toBeLessThanOrEqual(LIMITS.fields);
+    for (const f of e.fields ?? []) {
+      expect(f.name.length).toBeLessThanOrEqual(LIMITS.fieldName);
+      expect(f.value.length).toBeLessThanOrEqual(LIMITS.fieldValue);
+    }
+    expect(e.description?.length ?? 0).toBeLessThanOrEqual(LIMITS.description);
+    expect(size(e)).toBeLessThanOrEqual(LIMITS.total);
+  });
+
+  it('shows as many table rows as fit and says how many are left out', () => {
+    const long: Reply = {
+      kind: 'answer',
+      visibility: 'channel',
+      headline: 'All tanks',
+      table: {
+        columns: ['Tank', 'Runway'],
+        rows: Array.from({ length: 600 }, (_, i) => [`T${i}`, `${i} days`]),
+      },
+    };
+    const e = replyEmbed(long);
+    expect(e.description).toMatch(/…and \d+ more$/);
+    expect(e.description?.length).toBeLessThanOrEqual(LIMITS.description);
+  });
+});
+
+describe('action buttons', () => {
+  it('become buttons whose custom id carries the command', () => {
+    const [row] = actionRows(answer);
+    expect(row?.components.map((b) => ('custom_id' in b ? b.custom_id : ''))).toEqual([
+      `${ACTION_PREFIX}undo`,
+      `${ACTION_PREFIX}T4?`,
+    ]);
+    expect(actionCommand(`${ACTION_PREFIX}T4?`)).toBe('T4?');
+    expect(actionCommand('someone-else')).toBeUndefined();
+  });
+
+  it('puts five to a row and leaves out a command too long for a custom id', () => {
+    const many: Reply = {
+      ...answer,
+      actions: [
+        ...Array.from({ length: 7 }, (_, i) => ({ label: `a${i}`, command: `T${i}?` })),
+        { label: 'long', command: 'x'.repeat(120) },
+      ],
+    };
+    expect(actionRows(many).map((r) => r.components.length)).toEqual([5, 2]);
+  });
+});

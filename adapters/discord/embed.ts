@@ -1,0 +1,133 @@
+/**
+ * Reply -> a Discord message: one embed (headline as title, facts as fields, the table as a code block, the
+ * caution as the last field), the chart as an attached PNG shown in the embed, and the reply's actions as
+ * buttons. Kept inside Discord's embed limits (chat-platforms.md) by trimming, never by failing.
+ */
+import {
+  type APIActionRowComponent,
+  type APIButtonComponent,
+  type APIEmbed,
+  ButtonStyle,
+  ComponentType,
+} from 'discord.js';
+import { tableToText } from '../../bot/replies/plainText.js';
+import type { Reply, ReplyKind } from '../../bot/replies/reply.js';
+
+/** Our own colours per kind of reply (the chart's blue for answers). */
+export const KIND_COLORS: Record<ReplyKind, number> = {
+  confirmation: 0x2f855a,
+  answer: 0x1f5fa8,
+  question: 0xb7791f,
+  error: 0xc0262d,
+  help: 0x6b7280,
+  digest: 0x0f766e,
+  notice: 0xd9730d,
+};
+
+/** Discord's embed limits (discord.com developer docs, "Embed Limits"; the same figures in chat-platforms.md). */
+export const LIMITS = {
+  title: 256,
+  description: 4096,
+  fields: 25,
+  fieldName: 256,
+  fieldValue: 1024,
+  total: 6000,
+};
+
+/** Prefix of a button's custom id; the rest is a message in the bot's language. */
+export const ACTION_PREFIX = 'tr:';
+const CUSTOM_ID_MAX = 100;
+
+export function truncate(text: string, max: number): string {
+  const chars = [...text];
+  return chars.length <= max ? text : `${chars.slice(0, max - 1).join('')}…`;
+}
+
+/** The table as a code block that fits `budget` characters, saying how many rows were left out. */
+function tableBlock(reply: Reply, budget: number): string {
+  if (!reply.table) return '';
+  const [header = '', rule = '', ...rows] = tableToText(reply.table);
+  const wrap = (lines: string[], more: number) =>
+    `\`\`\`\n${lines.join('\n').replaceAll('```', "'''")}\n\`\`\`${more > 0 ? `\n…and ${more} more` : ''}`;
+  let shown = rows.length;
+  while (shown > 0 && wrap([header, rule, ...rows.slice(0, shown)], rows.length - shown).length > budget)
+    shown--;
+  const block = wrap([header, rule, ...rows.slice(0, shown)], rows.length - shown);
+  return block.length <= budget ? block : '';
+}
+
+function embedSize(embed: APIEmbed): number {
+  const fields = (embed.fields ?? []).reduce((n, f) => n + f.name.length + f.value.length, 0);
+  return (
+    (embed.title?.length ?? 0) + (embed.description?.length ?? 0) + fields + (embed.footer?.text.length ?? 0)
+  );
+}
+
+/**
+ * The embed of one reply. `chartName` is the attachment's file name when a chart PNG goes with it.
+ */
+export function replyEmbed(reply: Reply, chartName?: string): APIEmbed {
+  const [firstLine = '', ...moreLines] = reply.headline.split('\n');
+  const title = firstLine.trim() || '(no headline)';
+  const intro = [title.length > LIMITS.title ? title : '', ...moreLines].filter(Boolean).join('\n').trim();
+  const caution = reply.caution
+    ? { name: 'Caution', value: truncate(reply.caution, LIMITS.fieldValue), inline: false }
+    : undefined;
+  // The caution is kept whatever else must go; facts fill what is left of the total, in order.
+  let budget =
+    LIMITS.total -
+    Math.min(title.length, LIMITS.title) -
+    (caution ? caution.name.length + caution.value.length : 0);
+  const fields: { name: string; value: string; inline: boolean }[] = [];
+  for (const f of (reply.facts ?? []).slice(0, LIMITS.fields - 1)) {
+    const field = {
+      name: truncate(f.label || '-', LIMITS.fieldName),
+      value: truncate(f.value || '-', LIMITS.fieldValue),
+      inline: f.value.length <= 40,
+    };
+    if (field.name.length + field.value.length > budget) break;
+    budget -= field.name.length + field.value.length;
+    fields.push(field);
+  }
+  if (caution) fields.push(caution);
+  const embed: APIEmbed = {
+    title: truncate(title, LIMITS.title),
+    color: KIND_COLORS[reply.kind] ?? KIND_COLORS.notice,
+  };
+  if (fields.length > 0) embed.fields = fields;
+  if (chartName) embed.image = { url: `attachment://${chartName}` };
+  const room = Math.min(LIMITS.description, LIMITS.total - embedSize(embed) - 2);
+  const introText = truncate(intro, Math.max(0, Math.min(room, LIMITS.description)));
+  const table = tableBlock(reply, room - introText.length - 2);
+  const description = [introText, table].filter(Boolean).join('\n\n');
+  if (description) embed.description = description;
+  return embed;
+}
+
+/** The reply's actions as buttons (five to a row); an action too long for a custom id is left out. */
+export function actionRows(reply: Reply): APIActionRowComponent<APIButtonComponent>[] {
+  const buttons: APIButtonComponent[] = (reply.actions ?? [])
+    .filter((a) => (ACTION_PREFIX + a.command).length <= CUSTOM_ID_MAX)
+    .slice(0, 25)
+    .map((a) => ({
+      type: ComponentType.Button,
+      style:
+        a.style === 'danger'
+          ? ButtonStyle.Danger
+          : a.style === 'primary'
+            ? ButtonStyle.Primary
+            : ButtonStyle.Secondary,
+      label: truncate(a.label || a.command, 80),
+      custom_id: ACTION_PREFIX + a.command,
+    }));
+  const rows: APIActionRowComponent<APIButtonComponent>[] = [];
+  for (let i = 0; i < buttons.length; i += 5) {
+    rows.push({ type: ComponentType.ActionRow, components: buttons.slice(i, i + 5) });
+  }
+  return rows;
+}
+
+/** The message text behind a button, or undefined when the custom id is not ours. */
+export function actionCommand(customId: string): string | undefined {
+  return customId.startsWith(ACTION_PREFIX) ? customId.slice(ACTION_PREFIX.length) : undefined;
+}
