@@ -17,10 +17,7 @@ export function horizontalHeadVolume(head: Head, h: number): number {
       return 0.5 * Math.PI * a * h * h * (1 - h / (3 * R));
     case 'guppy':
       // D. Jones, "Calculating Tank Volume", guppy head (one head: half the two-head expression).
-      return (
-        (a * R * R * Math.acos(1 - h / R)) / 3 +
-        (a / (9 * R)) * Math.sqrt(Math.max(0, 2 * R * h - h * h)) * (2 * h - 3 * R) * (h + R)
-      );
+      return guppyHead(R, a, h);
     case 'conical':
       return h > R ? headVolume(head) - conicalBelowAxis(R, a, 2 * R - h) : conicalBelowAxis(R, a, h);
     case 'spherical':
@@ -33,15 +30,36 @@ export function horizontalHeadVolume(head: Head, h: number): number {
 }
 
 /**
+ * Guppy head: a R^2 theta / 3 + a / (9R) sqrt(2Rh - h^2) (2h - 3R) (h + R) with theta = acos(1 - h/R)
+ * (D. Jones, "Calculating Tank Volume"; one head is half the two-head expression). theta and the root are
+ * formed from h and 2R - h so that a thin layer, or a nearly full head, keeps its digits; the two terms
+ * still cancel there, so rounding is clamped to [0, full].
+ */
+function guppyHead(R: number, a: number, h: number): number {
+  const theta =
+    h <= R
+      ? 2 * Math.asin(Math.sqrt(h / (2 * R)))
+      : Math.PI - 2 * Math.asin(Math.sqrt((2 * R - h) / (2 * R)));
+  const v =
+    (a * R * R * theta) / 3 +
+    (a / (9 * R)) * Math.sqrt(Math.max(0, h * (2 * R - h))) * (2 * h - 3 * R) * (h + R);
+  return Math.min((Math.PI * a * R * R) / 3, Math.max(0, v));
+}
+
+/**
  * Conical head, level h <= R: a R^2 K / 3 with M = (R - h) / R and
  * K = acos M + M^3 acosh(1/M) - 2 M sqrt(1 - M^2) (D. Jones, "Calculating Tank Volume", horizontal cone).
  */
 function conicalBelowAxis(R: number, a: number, h: number): number {
-  const M = (R - h) / R;
+  const e = h / R;
+  const M = 1 - e;
   if (M <= 0) return (Math.PI * a * R * R) / 6;
-  if (M >= 1) return 0;
-  const K = Math.acos(M) + M * M * M * Math.acosh(1 / M) - 2 * M * Math.sqrt(1 - M * M);
-  return (a * R * R * K) / 3;
+  if (e <= 0) return 0;
+  // Each term from e = h/R, not from M, so a thin layer keeps its digits: acos M = 2 asin sqrt(e/2),
+  // sqrt(1 - M^2) = sqrt(e (2 - e)), acosh(1/M) = log1p((e + sqrt(e (2 - e))) / M).
+  const root = Math.sqrt(e * (2 - e));
+  const K = 2 * Math.asin(Math.sqrt(e / 2)) + M * M * M * Math.log1p((e + root) / M) - 2 * M * root;
+  return Math.max(0, (a * R * R * K) / 3);
 }
 
 /**

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { fail, ok, type Result } from '../result.js';
 import { LENGTH_UNITS, type LengthUnit, VOLUME_UNITS, type VolumeUnit } from '../units/index.js';
+import { torisphericalDepth } from './heads.js';
 
 /** The tank JSON of the CLI contract (section 1); every length in `units.length`. */
 export type HeadType = 'flat' | 'conical' | 'ellipsoidal' | 'spherical' | 'torispherical' | 'guppy';
@@ -106,6 +107,15 @@ function checkShape(spec: TankSpec, ctx: z.RefinementCtx): void {
       issue(path, 'guppy heads exist only on horizontal tanks');
     if (head.inward && !(spec.shape === 'vertical-cylinder' && i === 0))
       issue(path, 'only the bottom head of a vertical tank can be inward');
+    const reach =
+      head.type === 'torispherical' && head.f && head.k
+        ? torisphericalDepth(spec.diameter, head.f, head.k)
+        : head.depth;
+    if (head.inward && (reach ?? 0) > spec.length)
+      issue(
+        path,
+        `the inward bottom reaches ${reach} ${spec.units.length} up, above the shell (length ${spec.length})`,
+      );
   });
 }
 
