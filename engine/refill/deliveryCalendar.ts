@@ -1,5 +1,6 @@
-// When a delivery ordered at a given moment arrives, and the latest order that still arrives in time:
-// whole local days in the tank's time zone (luxon handles the zone and daylight-saving days).
+// When a delivery ordered at a given moment arrives, and the latest order that still arrives in time.
+// Days are local calendar dates in the tank's zone, counted as whole numbers so that stepping over weekends
+// and delivery weekdays is plain arithmetic; luxon turns dates into instants and back (zones, DST days).
 import { DateTime } from 'luxon';
 import type { RefillSettings } from './settings.js';
 
@@ -8,61 +9,110 @@ export type OrderCalendar = Pick<
   'leadTimeDays' | 'businessDays' | 'orderCutoffHour' | 'deliveryWeekdays' | 'timeZone'
 >;
 
-const isWeekend = (day: DateTime) => day.weekday >= 6;
-const nextDay = (day: DateTime): DateTime => day.plus({ days: 1 }).startOf('day');
+const DAY_MS = 86_400_000;
 
-/** The last moment of `day` at which an order still counts as placed that day. */
-export function cutoffOn(day: DateTime, calendar: OrderCalendar): DateTime {
-  const hour = calendar.orderCutoffHour;
-  if (hour >= 24) return day.endOf('day');
-  // set() rather than plus(): on a daylight-saving day local noon is not 12 hours after midnight.
-  return day.set({ hour: Math.floor(hour), minute: Math.round((hour % 1) * 60), second: 0, millisecond: 0 });
+/** A local calendar date as the number of days since 1970-01-01 (the date's own count, in no zone). */
+export type CivilDay = number;
+
+/** ISO weekday, 1 = Monday .. 7 = Sunday (1970-01-01 was a Thursday). */
+export const weekdayOf = (day: CivilDay): number => ((((day + 3) % 7) + 7) % 7) + 1;
+export const isoDateOf = (day: CivilDay): string => new Date(day * DAY_MS).toISOString().slice(0, 10);
+const isWeekend = (day: CivilDay) => weekdayOf(day) >= 6;
+
+/** The local date of an instant. */
+export function civilDayOf(ms: number, timeZone: string): CivilDay {
+  const t = DateTime.fromMillis(ms, { zone: timeZone });
+  return Date.UTC(t.year, t.month - 1, t.day) / DAY_MS;
 }
 
-/** The local day (its start) on which a delivery ordered at `orderAt` (epoch ms) arrives. */
-export function arrivalDay(orderAt: number, calendar: OrderCalendar): DateTime {
-  const placed = DateTime.fromMillis(orderAt, { zone: calendar.timeZone });
-  let day: DateTime = placed.startOf('day');
-  if (placed > cutoffOn(day, calendar)) day = nextDay(day);
+const instants = new Map<string, number>();
+
+/** The instant of a local wall-clock time (hours, fractions allowed) on a date; a time skipped by a
+ * daylight-saving change moves forward, as luxon does. */
+export function instantOf(day: CivilDay, hours: number, timeZone: string): number {
+  // luxon spends tens of microseconds per zone conversion; plans ask for the same few dates again and again.
+  const key = `${day}|${hours}|${timeZone}`;
+  const known = instants.get(key);
+  if (known !== undefined) return known;
+  if (instants.size >= 8192) instants.clear();
+  const date = new Date(day * DAY_MS);
+  const instant = DateTime.fromObject(
+    {
+      year: date.getUTCFullYear(),
+      month: date.getUTCMonth() + 1,
+      day: date.getUTCDate(),
+      hour: Math.floor(hours),
+      minute: Math.round((hours % 1) * 60),
+    },
+    { zone: timeZone },
+  ).toMillis();
+  instants.set(key, instant);
+  return instant;
+}
+
+/** Start and (exclusive) end of a local date, as instants. */
+export const startOfDay = (day: CivilDay, timeZone: string): number => instantOf(day, 0, timeZone);
+export const endOfDay = (day: CivilDay, timeZone: string): number => instantOf(day + 1, 0, timeZone) - 1;
+
+/** The last moment of `day` at which an order still counts as placed that day. */
+export function cutoffOn(day: CivilDay, calendar: OrderCalendar): number {
+  return calendar.orderCutoffHour >= 24
+    ? endOfDay(day, calendar.timeZone)
+    : instantOf(day, calendar.orderCutoffHour, calendar.timeZone);
+}
+
+/** The delivery date of an order that counts as placed on `day` (before that day's cut-off). */
+export function arrivalFromOrderDay(day: CivilDay, calendar: OrderCalendar): CivilDay {
+  let d = day;
   // A supplier counting business days handles a weekend order on Monday.
-  if (calendar.businessDays) while (isWeekend(day)) day = nextDay(day);
+  if (calendar.businessDays) while (isWeekend(d)) d++;
   const lead = Math.ceil(calendar.leadTimeDays);
   if (calendar.businessDays) {
     for (let left = lead; left > 0; ) {
-      day = nextDay(day);
-      if (!isWeekend(day)) left--;
+      d++;
+      if (!isWeekend(d)) left--;
     }
   } else {
-    day = day.plus({ days: lead }).startOf('day');
+    d += lead;
   }
-  while (!calendar.deliveryWeekdays.includes(day.weekday)) day = nextDay(day);
-  return day;
+  while (!calendar.deliveryWeekdays.includes(weekdayOf(d))) d++;
+  return d;
+}
+
+/** The local date on which a delivery ordered at `orderAt` (epoch ms) arrives. */
+export function arrivalDay(orderAt: number, calendar: OrderCalendar): CivilDay {
+  const placed = civilDayOf(orderAt, calendar.timeZone);
+  const counted = orderAt > cutoffOn(placed, calendar) ? placed + 1 : placed;
+  return arrivalFromOrderDay(counted, calendar);
 }
 
 export interface LatestOrder {
   /** Latest moment to place the order (epoch ms). */
   orderBy: number;
-  /** Start of the local day its delivery arrives. */
-  deliveryDay: DateTime;
-  /** End of that day: the truck may come at any hour, so the whole day must lie before the deadline. */
+  /** The local date its delivery arrives. */
+  deliveryDay: CivilDay;
+  /** End of that date: the truck may come at any hour, so the whole day must lie before the deadline. */
   deliveryBy: number;
 }
 
 /**
- * The latest order whose whole delivery day lies at or before `deadline` (epoch ms). The arrival day never
- * moves earlier when the order moves later, so scanning order days backward finds the latest one.
+ * The latest order whose whole delivery day lies at or before `deadline` (epoch ms). The arrival date never
+ * moves earlier when the order day moves later, so scanning order days backward finds the latest one.
  */
 export function latestOrderFor(deadline: number, calendar: OrderCalendar): LatestOrder | null {
+  // The last date that ends by the deadline (a deadline at 23:59:59.999 still allows its own date).
+  const lastDay = civilDayOf(deadline + 1, calendar.timeZone) - 1;
   const lead = Math.ceil(calendar.leadTimeDays);
-  // No delivery comes sooner than `lead` calendar days after its order day, so start the scan there.
-  let day = DateTime.fromMillis(deadline, { zone: calendar.timeZone }).startOf('day').minus({ days: lead });
-  const maxSteps = 2 * lead + 40; // weekends and a weekly delivery day cost far fewer steps than this
-  for (let step = 0; step < maxSteps; step++) {
-    const orderBy = cutoffOn(day, calendar).toMillis();
-    const deliveryDay = arrivalDay(orderBy, calendar);
-    const deliveryBy = deliveryDay.endOf('day').toMillis();
-    if (deliveryBy <= deadline) return { orderBy, deliveryDay, deliveryBy };
-    day = day.minus({ days: 1 }).startOf('day');
+  // No delivery comes sooner than `lead` days after its order date, so the scan starts there.
+  for (let day = lastDay - lead, step = 0; step < 2 * lead + 40; day--, step++) {
+    const deliveryDay = arrivalFromOrderDay(day, calendar);
+    if (deliveryDay <= lastDay) {
+      return {
+        orderBy: cutoffOn(day, calendar),
+        deliveryDay,
+        deliveryBy: endOfDay(deliveryDay, calendar.timeZone),
+      };
+    }
   }
   return null;
 }

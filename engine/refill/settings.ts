@@ -32,10 +32,7 @@ export const refillSettingsSchema = z.strictObject({
   /** Chance of the delivery arriving before the threshold is reached (cycle service level). */
   serviceLevel: z.number().min(0.5).max(0.9999).default(0.95),
   /** IANA zone for weekdays, cut-off hours and daylight-saving days. */
-  timeZone: z
-    .string()
-    .refine((zone) => IANAZone.isValidZone(zone), { message: 'not a known IANA time zone' })
-    .default('UTC'),
+  timeZone: z.string().refine(isKnownZone, { message: 'not a known IANA time zone' }).default('UTC'),
 });
 
 /** Settings with every default filled in. */
@@ -43,6 +40,17 @@ export type RefillSettings = z.output<typeof refillSettingsSchema>;
 /** Settings as a person writes them (everything but the threshold optional). */
 export type RefillSettingsInput = z.input<typeof refillSettingsSchema>;
 export type RefillThreshold = RefillSettings['threshold'];
+
+// Checking a zone builds an Intl formatter; plans are made often, from a handful of zones.
+const zoneChecks = new Map<string, boolean>();
+function isKnownZone(zone: string): boolean {
+  let known = zoneChecks.get(zone);
+  if (known === undefined) {
+    known = IANAZone.isValidZone(zone);
+    if (zoneChecks.size < 1000) zoneChecks.set(zone, known);
+  }
+  return known;
+}
 
 const settingKeys = Object.keys(refillSettingsSchema.shape);
 

@@ -1,0 +1,180 @@
+// The refill plan for one tank at `now`: when to order (or book a pick-up), what arrives when, and how much.
+// Pure: the clock is an argument. Litres, epoch ms, litres per day (positive while emptying).
+import { fail, ok, type Result } from '../result.js';
+import { arrivalDay, endOfDay, latestOrderFor, startOfDay } from './deliveryCalendar.js';
+import { orderQuantity, type QuantityIssue } from './orderQuantity.js';
+import { daysToThreshold, reorderPoint } from './reorderPoint.js';
+import { parseRefillSettings, type RefillSettings, type RefillSettingsInput } from './settings.js';
+
+const DAY_MS = 86_400_000;
+/** An order-by further out than this is "no order needed" (../shared/docs/cli-contract.md section 5). */
+export const ORDER_BY_WINDOW_DAYS = 14;
+/** A filtered volume may overshoot the capacity a little; beyond this it is a wrong reading or tank. */
+const OVER_CAPACITY_TOLERANCE = 0.02;
+
+export interface RefillInput {
+  now: number;
+  /** Filtered volume at `lastReadingAt`, litres. */
+  volume: number;
+  lastReadingAt: number;
+  /** Litres per day, positive while emptying, and its standard error (engine/rate RatePoint). */
+  rate: number;
+  rateSigma: number;
+  /** Litres; without it percent thresholds and the fill quantity cannot be worked out. */
+  capacity?: number;
+  /** A waste tank: plan a pick-up instead. Default: filling when the rate is negative. */
+  filling?: boolean;
+  /** Threshold, minimum and increment in litres. */
+  settings: RefillSettingsInput;
+}
+
+export interface RefillPlan {
+  verdict: 'order-now' | 'order-by' | 'no-order-needed';
+  /** A delivery into an emptying tank, or a pick-up from a filling one. */
+  mode: 'delivery' | 'pick-up';
+  /** Latest order time that still arrives in time; null when the threshold is never reached at this rate. */
+  orderBy: number | null;
+  /** End of the latest allowed delivery day before the threshold. */
+  deliveryBy: number | null;
+  /** When the tank reaches its threshold at the service level (the early side of the forecast). */
+  thresholdAt: number | null;
+  /** End of the delivery day of an order placed now. */
+  earliestDelivery: number;
+  /** Litres to order (to the safe fill level on arrival, whole increments, at least the minimum); null
+   * when the capacity is unknown. A pick-up: litres to take. */
+  quantity: number | null;
+  quantityIssue: QuantityIssue | null;
+  /** Litres expected in the tank when the planned delivery can first arrive (start of its day, or now). */
+  expectedVolumeOnArrival: number;
+  /** Tank volume at which to order, and the safety stock inside it, litres. */
+  reorderPoint: number;
+  safetyStock: number;
+  thresholdVolume: number;
+  safeFillVolume: number | null;
+}
+
+export function planRefill(input: RefillInput): Result<RefillPlan> {
+  const settingsResult = parseRefillSettings(input.settings);
+  if (!settingsResult.ok) return settingsResult;
+  const settings = settingsResult.value;
+  const checked = checkInput(input);
+  if (!checked.ok) return checked;
+  const { capacity, volume } = checked.value;
+  const filling = input.filling ?? input.rate < 0;
+  const flow = filling ? -input.rate : input.rate; // litres per day toward the threshold
+  const safeFillVolume = capacity === undefined ? null : (capacity * settings.safeFillPercent) / 100;
+
+  const threshold = thresholdVolume(settings, capacity, safeFillVolume, flow, filling);
+  if (!threshold.ok) return threshold;
+  const thresholdLitres = threshold.value;
+  const headroom = filling ? thresholdLitres - volume : volume - thresholdLitres;
+  const days = daysToThreshold(headroom, flow, input.rateSigma, settings.serviceLevel);
+  const thresholdAt = days === null ? null : input.lastReadingAt + days * DAY_MS;
+
+  const latest = thresholdAt === null ? null : latestOrderFor(thresholdAt, settings);
+  if (thresholdAt !== null && latest === null) {
+    return fail('No delivery day fits the refill settings; check deliveryWeekdays and leadTimeDays.');
+  }
+  const orderBy = latest?.orderBy ?? null;
+  const verdict =
+    orderBy === null || orderBy > input.now + ORDER_BY_WINDOW_DAYS * DAY_MS
+      ? 'no-order-needed'
+      : orderBy <= input.now
+        ? 'order-now'
+        : 'order-by';
+
+  // The order this plan stands for: placed now when late (or when there is no deadline), else at orderBy.
+  const orderAt = verdict === 'order-now' || orderBy === null ? input.now : orderBy;
+  const deliveryDay = orderAt === orderBy && latest ? latest.deliveryDay : arrivalDay(orderAt, settings);
+  const deliveryEnd = endOfDay(deliveryDay, settings.timeZone);
+  const arrival = Math.max(startOfDay(deliveryDay, settings.timeZone), input.now, input.lastReadingAt);
+  // The start of the delivery day is when an emptying tank holds the most (and a filling one the least):
+  // sizing the order there keeps a morning delivery below the safe fill level.
+  const expected = clamp(volume - (input.rate * (arrival - input.lastReadingAt)) / DAY_MS, 0, capacity);
+  const sized = quantityFor(filling, expected, safeFillVolume, settings);
+
+  const rp = reorderPoint({
+    demandPerDay: Math.max(0, flow),
+    sigmaPerDay: input.rateSigma,
+    leadTimeDays: (deliveryEnd - orderAt) / DAY_MS,
+    serviceLevel: settings.serviceLevel,
+    readingAgeDays: (orderAt - input.lastReadingAt) / DAY_MS,
+  });
+  return ok({
+    verdict,
+    mode: filling ? 'pick-up' : 'delivery',
+    orderBy,
+    deliveryBy: latest?.deliveryBy ?? null,
+    thresholdAt,
+    earliestDelivery:
+      orderAt === input.now ? deliveryEnd : endOfDay(arrivalDay(input.now, settings), settings.timeZone),
+    quantity: sized.quantity,
+    quantityIssue: sized.issue,
+    expectedVolumeOnArrival: expected,
+    reorderPoint: filling ? thresholdLitres - rp.reorderPoint : thresholdLitres + rp.reorderPoint,
+    safetyStock: rp.safetyStock,
+    thresholdVolume: thresholdLitres,
+    safeFillVolume,
+  });
+}
+
+function checkInput(input: RefillInput): Result<{ capacity: number | undefined; volume: number }> {
+  const finite = (x: unknown) => typeof x === 'number' && Number.isFinite(x);
+  for (const key of ['now', 'volume', 'lastReadingAt', 'rate', 'rateSigma'] as const) {
+    if (!finite(input[key]))
+      return fail(`Cannot plan a refill: ${key} is not a number (${String(input[key])}).`);
+  }
+  if (input.rateSigma < 0) return fail('Cannot plan a refill: the rate uncertainty is negative.');
+  if (input.now < input.lastReadingAt) {
+    return fail('Cannot plan a refill for a time before the last reading; plan at or after it.');
+  }
+  const capacity = input.capacity;
+  if (capacity !== undefined && !(finite(capacity) && capacity > 0)) {
+    return fail(`Cannot plan a refill: the tank capacity ${String(capacity)} is not a positive volume.`);
+  }
+  if (capacity !== undefined && input.volume > capacity * (1 + OVER_CAPACITY_TOLERANCE)) {
+    return fail(
+      `The volume ${round(input.volume)} L is above the tank's capacity of ${round(capacity)} L; check the reading or the tank's shape.`,
+    );
+  }
+  // A filtered volume a hair below zero or above capacity is noise, not news.
+  return ok({ capacity, volume: clamp(input.volume, 0, capacity) });
+}
+
+function thresholdVolume(
+  settings: RefillSettings,
+  capacity: number | undefined,
+  safeFill: number | null,
+  flow: number,
+  filling: boolean,
+): Result<number> {
+  const t = settings.threshold;
+  if ('percent' in t) {
+    if (capacity === undefined)
+      return fail('A percent threshold needs the tank capacity (give the tank or its capacity).');
+    return ok((capacity * t.percent) / 100);
+  }
+  if ('volume' in t) {
+    if (capacity !== undefined && t.volume > capacity) {
+      return fail(`The threshold ${round(t.volume)} L is above the tank's capacity of ${round(capacity)} L.`);
+    }
+    return ok(t.volume);
+  }
+  // A minimum runway: keep `runwayDays` of use in hand (a filling tank: that much room below the safe fill).
+  const use = Math.max(0, flow) * t.runwayDays;
+  if (!filling) return ok(use);
+  if (safeFill === null) return fail('A runway threshold on a filling tank needs the tank capacity.');
+  return ok(Math.max(0, safeFill - use));
+}
+
+function quantityFor(filling: boolean, expected: number, safeFill: number | null, settings: RefillSettings) {
+  if (filling) return orderQuantity(expected, settings.minimumOrder, settings.orderIncrement);
+  if (safeFill === null) return { quantity: null, issue: 'capacity-unknown' as const };
+  return orderQuantity(safeFill - expected, settings.minimumOrder, settings.orderIncrement);
+}
+
+function clamp(x: number, low: number, high: number | undefined): number {
+  return Math.min(Math.max(x, low), high ?? Number.POSITIVE_INFINITY);
+}
+
+const round = (x: number) => Math.round(x * 10) / 10;
