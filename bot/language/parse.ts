@@ -12,6 +12,7 @@ import { parseStrappingLines } from './parseStrappingRows.js';
 import { isTankNameShaped, matchTankPrefix, nearestTankName, unknownTankMessage } from './tankName.js';
 import {
   CANCEL_WORDS,
+  COMMAND_EXAMPLES,
   COMMAND_WORDS,
   DIGEST_NOW_WORDS,
   DONE_WORDS,
@@ -164,6 +165,8 @@ function parseRename(line: string, context: ParseContext): Result<Command> {
   return renamed;
 }
 
+const shorten = (line: string): string => (line.length > 60 ? `${line.slice(0, 60)}…` : line);
+
 /** Neither a command nor a known tank: suggest the nearest command word or tank name. */
 function notUnderstood(line: string, context: ParseContext): Result<Command> {
   const m = /^([^\s?+]+)\s*(.*)$/.exec(line);
@@ -175,18 +178,19 @@ function notUnderstood(line: string, context: ParseContext): Result<Command> {
     ULLAGE_WORDS.has(rest.split(' ')[0]?.toLowerCase() ?? '') ||
     (rest === '' && line.endsWith('?'));
   if (looksLikeReading && isTankNameShaped(first)) return fail(unknownTankMessage(first, context.tankNames));
-  const nearCommand = closest(lower, [...COMMAND_WORDS]);
+  const nearCommand = closest(lower, COMMAND_WORDS);
   if (
     /^\p{L}+$/u.test(lower) &&
-    lower.length >= 3 &&
+    lower.length >= 2 &&
     distance(lower, nearCommand) <= (lower.length > 5 ? 2 : 1)
   ) {
-    return fail(
-      `I did not understand "${first}". Did you mean \`${nearCommand}\`? Send \`help ${nearCommand}\` for examples.`,
-    );
+    const example = COMMAND_EXAMPLES[nearCommand] ?? 'help';
+    const lead =
+      lower === nearCommand ? `I could not follow "${shorten(line)}".` : `I did not understand "${first}".`;
+    return fail(`${lead} Did you mean \`${example}\`? Send \`help\` for more examples.`);
   }
   const nearTank = nearestTankName(first, context.tankNames);
-  const shown = line.length > 60 ? `${line.slice(0, 60)}…` : line;
+  const shown = shorten(line);
   if (nearTank) return fail(`I did not understand "${shown}". Did you mean ${nearTank}? ${TRY}`);
   return fail(`I did not understand "${shown}". ${TRY}`);
 }

@@ -79,7 +79,7 @@ function readLeadTime(text: string): Result<Setting> {
 
 /** `set time zone America/Chicago`, `set digest 07:00 weekdays here`, `set T4 threshold 20%`. */
 export function parseSet(text: string, context: ParseContext): Result<CommandOf<'set'>> {
-  const rest = text.replace(/^set\s+/i, '').trim();
+  const rest = text.replace(/^set\b\s*/i, '').trim();
   const zone = /^(?:team\s+)?(?:time\s*zone|tz|zone)\s*(?:to\s+|=\s*)?(.*)$/i.exec(rest);
   if (zone) {
     const name = (zone[1] ?? '').trim();
@@ -99,6 +99,7 @@ export function parseSet(text: string, context: ParseContext): Result<CommandOf<
     if (SETTING_NAMES.test(rest)) return fail(`Name the tank first: \`set T4 ${rest}\`.`);
     return fail(word ? unknownTankMessage(word, context.tankNames) : `Say what to set, ${SET_FORMS}.`);
   }
+  if (known.rest === '') return fail(`Say what to set for ${known.tank}, ${SET_FORMS}.`);
   const setting = SETTING_NAMES.exec(known.rest);
   if (!setting) return fail(`I do not know the setting "${known.rest}"; ${SET_FORMS}.`);
   const [, name = '', value = ''] = setting;

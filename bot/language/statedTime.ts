@@ -52,6 +52,10 @@ export function resolveStatedTime(raw: string, context: TimeContext): Result<Sta
   }
   if (first.end) return fail(`"${raw}" is a range; give one time, e.g. \`at 7:30\`.`);
   const start = first.start;
+  // "yesterday", "on monday", "last night" name a day or a part of it, not when the gauge was read.
+  if (!start.isCertain('hour') && !/\bago\b/i.test(raw)) {
+    return fail(`"${raw}" does not say the time of day; add it, e.g. \`yesterday 4pm\` or \`monday 7:30\`.`);
+  }
   const at = start.isCertain('timezoneOffset')
     ? start.date().getTime()
     : instantOfLocal(

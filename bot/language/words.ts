@@ -3,30 +3,33 @@
  * these tables so a new synonym is one edit here.
  */
 
-/** First words that start a command (lower case). Used to route and to suggest the nearest on a typo. */
-export const COMMAND_WORDS = [
-  'help',
-  'undo',
-  'add',
-  'new',
-  'remove',
-  'rename',
-  'set',
-  'delete',
-  'delivered',
-  'delivery',
-  'digest',
-  'all',
-  'status',
-  'tanks',
-  'which',
-  'what',
-  'how',
-  'yes',
-  'no',
-  'cancel',
-  'done',
-] as const;
+/** An example of each command word, shown when a message starts with one but does not parse. */
+export const COMMAND_EXAMPLES: Readonly<Record<string, string>> = {
+  help: 'help readings',
+  undo: 'undo',
+  add: 'add tank T4 vertical-cylinder diameter=48in length=72in unit=gal',
+  new: 'new tank',
+  remove: 'remove tank T4',
+  rename: 'rename tank T4 to GEN-1',
+  set: 'set T4 threshold 20%',
+  delete: 'delete the 7:30 reading',
+  delivered: 'delivered 150 gal to T4',
+  delivery: 'delivery 150 gal to T4',
+  digest: 'digest now',
+  all: 'all',
+  status: 'status T4',
+  tanks: 'tanks',
+  which: 'which tanks run low this week?',
+  what: 'what runs low this week?',
+  how: 'how long does T4 last?',
+  yes: 'yes',
+  no: 'no',
+  cancel: 'cancel',
+  done: 'done',
+};
+
+/** First words that start a command (lower case): to suggest the nearest on a typo. */
+export const COMMAND_WORDS = Object.keys(COMMAND_EXAMPLES);
 
 export const YES_WORDS = new Set(['yes', 'y', 'yep', 'yeah', 'ok', 'okay', 'correct', 'confirm', 'keep it']);
 export const NO_WORDS = new Set(['no', 'n', 'nope', 'wrong', 'discard', 'drop it']);
