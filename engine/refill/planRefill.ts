@@ -51,6 +51,17 @@ export interface RefillPlan {
   safetyStock: number;
   thresholdVolume: number;
   safeFillVolume: number | null;
+  /** What it takes to size this tank's share of a delivery at another time (site consolidation). */
+  sizing: PlanSizing;
+}
+
+export interface PlanSizing {
+  /** The moment `expectedVolumeOnArrival` refers to. */
+  arrivalAt: number;
+  /** Litres per day, positive while emptying. */
+  ratePerDay: number;
+  minimumOrder: number;
+  orderIncrement: number;
 }
 
 export function planRefill(input: RefillInput): Result<RefillPlan> {
@@ -115,6 +126,12 @@ export function planRefill(input: RefillInput): Result<RefillPlan> {
     safetyStock: rp.safetyStock,
     thresholdVolume: thresholdLitres,
     safeFillVolume,
+    sizing: {
+      arrivalAt: arrival,
+      ratePerDay: input.rate,
+      minimumOrder: settings.minimumOrder,
+      orderIncrement: settings.orderIncrement,
+    },
   });
 }
 
