@@ -12,6 +12,8 @@ export interface ShapeModel {
   volumeM3(h: number): number;
   /** Breakpoints (metres) where the formula changes branch; the inverse brackets between them. */
   joins: number[];
+  /** The lowest level with a volume (metres): 0, or a strapping table's first row. */
+  lowestLevel?: number;
 }
 
 export function shapeModel(spec: TankSpec): ShapeModel {
@@ -51,6 +53,7 @@ export function shapeModel(spec: TankSpec): ShapeModel {
         fullHeight: levels[levels.length - 1] ?? 0,
         volumeM3: (h) => interpolateTable(levels, volumes, h),
         joins: levels.slice(1, -1),
+        lowestLevel: levels[0] ?? 0,
       };
     }
   }

@@ -11,6 +11,8 @@ export interface Tank {
   readonly fullHeight: number;
   /** Litres. */
   readonly capacity: number;
+  /** Metres: 0, or the first level of a strapping table (below it the table says nothing). */
+  readonly lowestLevel: number;
   /** Litres at a level in metres; the fast path, with no range check (keep 0 <= level <= fullHeight). */
   volumeAt(levelMetres: number): number;
   /** Metres at a volume in litres, to 1e-9 of the full height; volumes outside [V(0), capacity] clamp. */
@@ -31,18 +33,19 @@ export function buildTank(input: unknown): Result<Tank> {
 
 function tankFromModel(spec: TankSpec, model: ShapeModel): Tank {
   const H = model.fullHeight;
+  const floor = model.lowestLevel ?? 0;
   const volumeAt = (h: number) => model.volumeM3(h) * 1000;
   const levels = [
     ...new Set([0, ...model.joins, ...Array.from({ length: BRACKETS + 1 }, (_, i) => (H * i) / BRACKETS)]),
   ]
-    .filter((h) => h >= 0 && h <= H)
+    .filter((h) => h >= floor && h <= H)
     .sort((x, y) => x - y);
   const volumes = levels.map(volumeAt);
   const capacity = volumes[volumes.length - 1]!;
   const bottom = volumes[0]!;
   const xtol = 1e-12 * H;
   const levelAt = (v: number): number => {
-    if (!(v > bottom)) return 0;
+    if (!(v > bottom)) return floor;
     if (v >= capacity) return H;
     // The first tabulated level whose volume reaches v (a flat stretch resolves to its lowest level).
     let lo = 0;
@@ -55,37 +58,40 @@ function tankFromModel(spec: TankSpec, model: ShapeModel): Tank {
     if (volumes[hi] === v) return levels[hi]!;
     return brentRoot((h) => volumeAt(h) - v, levels[lo]!, levels[hi]!, xtol);
   };
-  return { spec, fullHeight: H, capacity, volumeAt, levelAt };
+  return { spec, fullHeight: H, capacity, lowestLevel: floor, volumeAt, levelAt };
 }
 
 const fmt = (x: number) => Number(x.toPrecision(6)).toString();
 
-/** Litres at a level in metres; below 0 or above the full height is an error naming the range. */
+/** Litres at a level in metres; below the lowest level or above the full height is an error naming the range. */
 export function volumeAtLevel(tank: Tank, levelMetres: number): Result<number> {
   if (!Number.isFinite(levelMetres)) return fail('the level must be a number');
   const unit = tank.spec.units.length;
   const H = tank.fullHeight;
+  const floor = tank.lowestLevel;
   const slack = 1e-12 * H;
-  if (levelMetres < -slack || levelMetres > H + slack) {
+  if (levelMetres < floor - slack || levelMetres > H + slack) {
     const shown = fmt(fromMetres(levelMetres, unit));
-    return fail(
-      `level ${shown} ${unit} is outside this tank: it must be between 0 and ${fmt(fromMetres(H, unit))} ${unit}`,
-    );
+    const range = `between ${fmt(fromMetres(floor, unit))} and ${fmt(fromMetres(H, unit))} ${unit}`;
+    const where = tank.spec.shape === 'strapping' ? 'outside the strapping table' : 'outside this tank';
+    return fail(`level ${shown} ${unit} is ${where}: it must be ${range}`);
   }
-  return ok(tank.volumeAt(Math.min(H, Math.max(0, levelMetres))));
+  return ok(tank.volumeAt(Math.min(H, Math.max(floor, levelMetres))));
 }
 
-/** Metres at a volume in litres; a negative volume or one above capacity is an error naming the range. */
+/** Metres at a volume in litres; a volume the tank (or its table) cannot hold is an error naming the range. */
 export function levelAtVolume(tank: Tank, volumeLitres: number): Result<number> {
   if (!Number.isFinite(volumeLitres)) return fail('the volume must be a number');
   const unit = tank.spec.units.volume;
   const cap = tank.capacity;
+  const bottom = tank.volumeAt(tank.lowestLevel);
   const slack = 1e-12 * cap;
-  if (volumeLitres < -slack || volumeLitres > cap + slack) {
+  if (volumeLitres < bottom - slack || volumeLitres > cap + slack) {
     const shown = fmt(fromLitres(volumeLitres, unit));
-    return fail(
-      `volume ${shown} ${unit} does not fit this tank: it holds 0 to ${fmt(fromLitres(cap, unit))} ${unit}`,
-    );
+    const range = `${fmt(fromLitres(bottom, unit))} to ${fmt(fromLitres(cap, unit))} ${unit}`;
+    const where =
+      tank.spec.shape === 'strapping' ? 'is outside the strapping table' : 'does not fit this tank';
+    return fail(`volume ${shown} ${unit} ${where}: it holds ${range}`);
   }
   return ok(tank.levelAt(volumeLitres));
 }
