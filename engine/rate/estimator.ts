@@ -10,6 +10,7 @@ import { pointFrom, rejectedPoint } from './point.js';
 import { deviationReason, unitSlipReason } from './suspect.js';
 import {
   CHANGE_SETTLE_DAYS,
+  CUSUM_DECORRELATION_DAYS,
   CUSUM_H,
   CUSUM_K,
   DAY_MS,
@@ -215,18 +216,21 @@ export class Estimator implements RateEstimator {
     const before = s.r;
     const alpha = Math.max(1 / s.count, 0.02);
     s.innovationVar += alpha * (Math.min(e * e, EVENT_Z * EVENT_Z * S) - s.innovationVar);
+    const dt = (time - s.lastTime!) / DAY_MS;
     update(s, pr, clipped, R);
     s.lastTime = time;
-    this.detectChange(time, z, before);
+    // Dense readings are not independent (thermal swing, working hours): each counts for at most its share
+    // of the decorrelation time, so a sensor every 5 minutes does not raise an alarm 72 times sooner.
+    this.detectChange(time, z, before, Math.min(1, dt / CUSUM_DECORRELATION_DAYS));
   }
 
   /** Two-sided CUSUM on standardised innovations; an alarm widens the rate's variance so it re-learns. */
-  private detectChange(time: number, z: number, before: number): void {
+  private detectChange(time: number, z: number, before: number, weight: number): void {
     const s = this.s;
     if (s.cusumPos === 0) s.cusumPosStart = time;
     if (s.cusumNeg === 0) s.cusumNegStart = time;
-    s.cusumPos = Math.max(0, s.cusumPos + z - CUSUM_K);
-    s.cusumNeg = Math.max(0, s.cusumNeg - z - CUSUM_K);
+    s.cusumPos = Math.max(0, s.cusumPos + weight * (z - CUSUM_K));
+    s.cusumNeg = Math.max(0, s.cusumNeg + weight * (-z - CUSUM_K));
     if (s.cusumPos > CUSUM_H || s.cusumNeg > CUSUM_H) {
       const at = s.cusumPos > CUSUM_H ? s.cusumPosStart : s.cusumNegStart;
       const rateFloor = 1e-3 * Math.max(s.scale, 1);

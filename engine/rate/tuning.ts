@@ -12,7 +12,9 @@ export const RATE_MEMORY_DAYS = 1.5;
 export const RATE_MEMORY_INTERVALS = 3;
 /** Two-sided CUSUM on standardised innovations (Page, 1954): allowance and alarm level. */
 export const CUSUM_K = 0.5;
-export const CUSUM_H = 8;
+export const CUSUM_H = 5;
+/** Residuals closer together than this are not independent evidence of a change (days). */
+export const CUSUM_DECORRELATION_DAYS = 0.25;
 /** Below this mean sampling interval a series is dense (a sensor), above it manual. */
 export const DENSE_INTERVAL_DAYS = 2 / 24;
 /** Deviant readings waited on before a level shift is accepted regardless. */
