@@ -43,15 +43,55 @@ interface BandPoint extends Point {
   hi: number;
 }
 
+/** Past this many points a line carries more points than a phone has pixels across. */
+export const MAX_LINE_POINTS = 600;
+
+/**
+ * Thins a time-ordered series to at most `max` points by keeping each bucket's lowest and highest point in
+ * time order, so a delivery's jump and the lowest level still show; short series pass through unchanged.
+ */
+export function thinSeries<T extends { t: number; v: number }>(
+  points: readonly T[],
+  max = MAX_LINE_POINTS,
+): T[] {
+  if (points.length <= max) return [...points];
+  const buckets = Math.max(1, Math.floor(max / 2));
+  const size = points.length / buckets;
+  const kept: T[] = [];
+  for (let b = 0; b < buckets; b++) {
+    const slice = points.slice(Math.floor(b * size), Math.floor((b + 1) * size));
+    if (slice.length === 0) continue;
+    let lo = slice[0] as T;
+    let hi = slice[0] as T;
+    for (const p of slice) {
+      if (p.v < lo.v) lo = p;
+      if (p.v > hi.v) hi = p;
+    }
+    if (lo === hi) kept.push(lo);
+    else kept.push(...(lo.t <= hi.t ? [lo, hi] : [hi, lo]));
+  }
+  const first = points[0] as T;
+  const last = points[points.length - 1] as T;
+  if (kept[0] !== first) kept.unshift(first);
+  if (kept[kept.length - 1] !== last) kept.push(last);
+  return kept;
+}
+
 /** Rows for each layer, in wall-clock time, dropping points a broken input made non-finite. */
 export function chartRows(chart: LevelChart) {
   const t = (time: number) => toWallClock(time, chart.timeZone);
-  const history: Point[] = chart.history
-    .filter((p) => finite(p.time, p.volume))
-    .map((p) => ({ t: t(p.time), v: p.volume }));
-  const forecast: BandPoint[] = chart.forecast
-    .filter((p) => finite(p.time, p.volume, p.low, p.high))
-    .map((p) => ({ t: t(p.time), v: p.volume, lo: p.low, hi: p.high }));
+  const history: Point[] = thinSeries(
+    chart.history
+      .filter((p) => finite(p.time, p.volume))
+      .map((p) => ({ t: t(p.time), v: p.volume }))
+      .sort((a, b) => a.t - b.t),
+  );
+  const forecast: BandPoint[] = thinSeries(
+    chart.forecast
+      .filter((p) => finite(p.time, p.volume, p.low, p.high))
+      .map((p) => ({ t: t(p.time), v: p.volume, lo: p.low, hi: p.high }))
+      .sort((a, b) => a.t - b.t),
+  );
   // The forecast starts where the measured line ends, so the two read as one line that turns dashed.
   const last = history[history.length - 1];
   const first = forecast[0];

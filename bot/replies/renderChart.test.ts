@@ -1,5 +1,6 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { chartRows, toWallClock } from './chartSpec.js';
+import { chartRows, MAX_LINE_POINTS, thinSeries, toWallClock } from './chartSpec.js';
 import { renderChartPng, renderChartSvg } from './renderChart.js';
 import type { LevelChart } from './reply.js';
 
@@ -105,5 +106,39 @@ describe('toWallClock', () => {
     expect(toWallClock(summer, 'America/Chicago')).toBe(summer - 5 * 3_600_000);
     expect(toWallClock(winter, 'America/Chicago')).toBe(winter - 6 * 3_600_000);
     expect(toWallClock(winter, 'Not/AZone')).toBe(winter);
+  });
+});
+
+describe('thinSeries', () => {
+  it('thins three years of hourly readings to a phone-sized line that keeps the extremes and both ends', () => {
+    const hourly = Array.from({ length: 3 * 365 * 24 }, (_, i) => ({
+      t: i * 3_600_000,
+      v: i === 9000 ? 800 : 500 - (i % 700),
+    }));
+    const thin = thinSeries(hourly);
+    expect(thin.length).toBeLessThanOrEqual(MAX_LINE_POINTS + 2);
+    expect(thin[0]).toBe(hourly[0]);
+    expect(thin[thin.length - 1]).toBe(hourly[hourly.length - 1]);
+    expect(Math.max(...thin.map((p) => p.v))).toBe(800);
+    expect(Math.min(...thin.map((p) => p.v))).toBe(Math.min(...hourly.map((p) => p.v)));
+  });
+
+  it('keeps time order and never invents a point (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.integer({ min: -1000, max: 1000 }), { maxLength: 3000 }),
+        fc.integer({ min: 2, max: 700 }),
+        (values, max) => {
+          const points = values.map((v, i) => ({ t: i, v }));
+          const thin = thinSeries(points, max);
+          expect(thin.length).toBeLessThanOrEqual(
+            Math.max(points.length <= max ? points.length : max + 2, 0),
+          );
+          for (let i = 1; i < thin.length; i++) expect((thin[i]?.t ?? 0) > (thin[i - 1]?.t ?? 0)).toBe(true);
+          for (const p of thin) expect(points).toContain(p);
+        },
+      ),
+      { numRuns: 50 },
+    );
   });
 });
