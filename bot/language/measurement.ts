@@ -8,7 +8,8 @@ const READING_FORMS = 'e.g. `60in`, `5\' 2"`, `48%`, `410 gal` or `ullage 14in`'
 /** A length as typed ("60in", "5' 2\"", "1.2 m"), never negative. */
 export function parseLength(text: string, what = 'a level'): Result<Length> {
   const quantity = parseQuantity(text);
-  if (!quantity.ok) return fail(`I could not read ${what} "${text}": ${quantity.error}.`);
+  if (!quantity.ok)
+    return fail(`I could not read ${what} "${text}": ${quantity.error}; write it like 60in or 1.5 m.`);
   const unit = lengthUnitSchema.safeParse(quantity.value.unit);
   if (quantity.value.kind !== 'length' || !unit.success) {
     return fail(`"${text}" is not a length; ${what} needs a length unit such as in, ft, cm or m.`);
@@ -19,7 +20,8 @@ export function parseLength(text: string, what = 'a level'): Result<Length> {
 /** A volume as typed ("410 gal", "1,550 L"), never negative. */
 export function parseVolume(text: string, what = 'a volume'): Result<Volume> {
   const quantity = parseQuantity(text);
-  if (!quantity.ok) return fail(`I could not read ${what} "${text}": ${quantity.error}.`);
+  if (!quantity.ok)
+    return fail(`I could not read ${what} "${text}": ${quantity.error}; write it like 150 gal or 600 L.`);
   const unit = volumeUnitSchema.safeParse(quantity.value.unit);
   if (quantity.value.kind !== 'volume' || !unit.success) {
     return fail(`"${text}" is not a volume; ${what} needs a volume unit such as gal, L, bbl or m3.`);

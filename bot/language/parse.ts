@@ -9,7 +9,7 @@ import { parseRunningLow, parseTankQuestion } from './parseQuestion.js';
 import { parseReading } from './parseReading.js';
 import { parseSet } from './parseSetting.js';
 import { parseStrappingLines } from './parseStrappingRows.js';
-import { isTankNameShaped, matchTankPrefix, nearestTankName, unknownTankMessage } from './tankName.js';
+import { isTankNameShaped, matchTankPrefix, typedTankPrefix, unknownTankMessage } from './tankName.js';
 import {
   CANCEL_WORDS,
   COMMAND_EXAMPLES,
@@ -189,8 +189,8 @@ function notUnderstood(line: string, context: ParseContext): Result<Command> {
       lower === nearCommand ? `I could not follow "${shorten(line)}".` : `I did not understand "${first}".`;
     return fail(`${lead} Did you mean \`${example}\`? Send \`help\` for more examples.`);
   }
-  const nearTank = nearestTankName(first, context.tankNames);
+  const typed = typedTankPrefix(line, context.tankNames);
+  if (typed !== undefined) return fail(unknownTankMessage(typed, context.tankNames));
   const shown = shorten(line);
-  if (nearTank) return fail(`I did not understand "${shown}". Did you mean ${nearTank}? ${TRY}`);
   return fail(`I did not understand "${shown}". ${TRY}`);
 }

@@ -20,6 +20,24 @@ export function nearestTankName(word: string, tankNames: readonly string[]): str
 }
 
 /**
+ * The words at the start of `text` that look like a typo of a known tank name with as many words
+ * ("Nrth Yard 2 48%" -> "Nrth Yard 2"), for "did you mean".
+ */
+export function typedTankPrefix(text: string, tankNames: readonly string[]): string | undefined {
+  const words = text.replace(/\?$/, '').split(/\s+/);
+  let best: { typed: string; score: number } | undefined;
+  for (const name of tankNames) {
+    const count = name.split(/\s+/).length;
+    if (count > words.length) continue;
+    const typed = words.slice(0, count).join(' ').replace(/\?$/, '');
+    if (nearestTankName(typed, [name]) === undefined) continue;
+    const score = distance(typed.toLowerCase(), name.toLowerCase());
+    if (!best || score < best.score) best = { typed, score };
+  }
+  return best?.typed;
+}
+
+/**
  * The longest known tank name (case-insensitive, words separated by spaces) that starts `text`, so names
  * with spaces ("North Yard 2") work; returns the team's spelling and the rest of the text.
  */
