@@ -23,6 +23,10 @@ export interface ReadingsRepo {
   /** The latest live, confirmed reading at or before `at`, if any. */
   latest(teamId: string, tankId: number, at?: number): Reading | undefined;
   setStatus(teamId: string, id: number, status: ReadingStatus): boolean;
+  /** A unit correction ("that was cm"): the number stands, its kind and unit change; the raw text stays. */
+  correctUnit(teamId: string, id: number, kind: ReadingKind, unit: string): boolean;
+  /** The newest live readings of a team (or of one tank), newest first, held ones included. */
+  newest(teamId: string, limit: number, tankId?: number): Reading[];
   softDelete(teamId: string, id: number, at: number): boolean;
   restore(teamId: string, id: number): boolean;
 }
@@ -60,6 +64,15 @@ export function readingsRepo(db: Database.Database): ReadingsRepo {
   const setStatus = db.prepare(
     'UPDATE readings SET status = ? WHERE team_id = ? AND id = ? AND deleted_at IS NULL',
   );
+  const correctUnit = db.prepare(
+    'UPDATE readings SET kind = ?, unit = ? WHERE team_id = ? AND id = ? AND deleted_at IS NULL',
+  );
+  const newestOfTeam = db.prepare<[string, number], ReadingDbRow>(
+    'SELECT * FROM readings WHERE team_id = ? AND deleted_at IS NULL ORDER BY time DESC, id DESC LIMIT ?',
+  );
+  const newestOfTank = db.prepare<[string, number, number], ReadingDbRow>(
+    `SELECT * FROM readings WHERE ${LIVE} ORDER BY time DESC, id DESC LIMIT ?`,
+  );
   const softDelete = db.prepare(
     'UPDATE readings SET deleted_at = ? WHERE team_id = ? AND id = ? AND deleted_at IS NULL',
   );
@@ -96,6 +109,11 @@ export function readingsRepo(db: Database.Database): ReadingsRepo {
       return row ? toReading(row) : undefined;
     },
     setStatus: (teamId, id, status) => setStatus.run(status, teamId, id).changes === 1,
+    correctUnit: (teamId, id, kind, unit) => correctUnit.run(kind, unit, teamId, id).changes === 1,
+    newest: (teamId, limit, tankId) =>
+      (tankId === undefined ? newestOfTeam.all(teamId, limit) : newestOfTank.all(teamId, tankId, limit)).map(
+        toReading,
+      ),
     softDelete: (teamId, id, at) => softDelete.run(at, teamId, id).changes === 1,
     restore: (teamId, id) => restore.run(teamId, id).changes === 1,
   };

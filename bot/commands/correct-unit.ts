@@ -1,0 +1,53 @@
+import { buildTank } from '../../engine/geometry/index.js';
+import { readingLitres } from '../reading-volume.js';
+import type { ReadingKind } from '../store/types.js';
+import { tankStatus } from '../tank-status.js';
+import { defineHandler, privateError } from './handler.js';
+import { readingConfirmation } from './reading.js';
+
+/** "that was cm": the sender's last reading keeps its number and takes this unit. */
+export const correctUnitHandler = defineHandler({
+  type: 'correct-unit',
+  run: (command, context) => {
+    const { store, request, now, timeZone } = context;
+    const entry = store.audit.lastUndoable(request.team, request.user);
+    const reading =
+      entry?.action === 'reading.add' && entry.targetId !== null
+        ? store.readings.byId(request.team, entry.targetId)
+        : undefined;
+    if (!reading)
+      return [privateError('You have no recent reading to correct; send the reading again with its unit.')];
+    const tank = store.tanks.byId(request.team, reading.tankId);
+    const geometry = tank ? buildTank(tank.spec) : undefined;
+    if (!tank || !geometry?.ok)
+      return [privateError('That reading’s tank cannot be used any more; nothing was changed.')];
+    const u = command.unit;
+    const kind: ReadingKind =
+      u.kind === 'percent'
+        ? 'percent'
+        : u.kind === 'volume'
+          ? 'volume'
+          : reading.kind === 'ullage'
+            ? 'ullage'
+            : 'level';
+    const unit = u.kind === 'percent' ? '%' : u.unit;
+    const litres = readingLitres(geometry.value, { kind, value: reading.value, unit });
+    if (!litres.ok) return [privateError(`${tank.code}: ${litres.error}`)];
+    store.readings.correctUnit(request.team, reading.id, kind, unit);
+    store.readings.setStatus(request.team, reading.id, 'ok');
+    store.pending.clear(request.team, request.channel, request.user);
+    store.audit.record(
+      request.team,
+      {
+        userId: request.user,
+        action: 'reading.unit',
+        target: 'readings',
+        targetId: reading.id,
+        detail: { from: { kind: reading.kind, unit: reading.unit }, to: { kind, unit } },
+      },
+      now,
+    );
+    const status = tankStatus(store, request.team, tank.id, now)!;
+    return [readingConfirmation(status, { ...reading, kind, unit }, now, timeZone)];
+  },
+});

@@ -1,0 +1,8 @@
+import { digestFromStore } from '../schedule/digest.js';
+import { defineHandler } from './handler.js';
+
+/** "digest now": the morning digest on demand, composed by bot/schedule exactly as the scheduled one. */
+export const digestNowHandler = defineHandler({
+  type: 'digest-now',
+  run: (_command, { store, team, now }) => [digestFromStore(store, team, now, null)],
+});

@@ -1,0 +1,50 @@
+import { formatAge, formatDuration, formatPercent, formatVolume } from '../replies/format.js';
+import type { Table } from '../replies/reply.js';
+import type { Store } from '../store/index.js';
+import { type TankStatus, tankStatus } from '../tank-status.js';
+import { dateFromNow } from './status-reply.js';
+
+/** Every live tank's status, in code order. */
+export function teamStatuses(store: Store, teamId: string, now: number): TankStatus[] {
+  return store.tanks.list(teamId).flatMap((t) => {
+    const s = tankStatus(store, teamId, t.id, now);
+    return s ? [s] : [];
+  });
+}
+
+/** One row per tank: the overview and the "running low" answers share it. */
+export function tankTable(statuses: readonly TankStatus[], now: number, timeZone: string): Table {
+  return {
+    columns: ['tank', 'site', 'volume', 'full', 'runway', 'refill', 'last reading'],
+    rows: statuses.map((s) => [
+      s.tank.code,
+      s.tank.site ?? '',
+      s.latest ? formatVolume(s.latest.volume, s.volumeUnit) : '-',
+      s.latest ? formatPercent(s.latest.fraction) : '-',
+      runwayCell(s),
+      refillCell(s, now, timeZone),
+      s.latest ? formatAge(s.latest.time, now) : 'none',
+    ]),
+  };
+}
+
+function runwayCell(s: TankStatus): string {
+  const r = s.runway;
+  if (!r || s.history.length < 2) return '-';
+  if (r.days === null) return s.filling ? 'not rising' : 'not falling';
+  return formatDuration({
+    value: r.days,
+    ...(r.low !== null ? { low: r.low } : {}),
+    high: r.high ?? Number.POSITIVE_INFINITY,
+  });
+}
+
+function refillCell(s: TankStatus, now: number, timeZone: string): string {
+  const p = s.refill;
+  if (!p || s.history.length < 2) return '-';
+  const what = p.mode === 'pick-up' ? 'pick-up' : 'order';
+  if (p.verdict === 'order-now') return `${what} now`;
+  if (p.verdict === 'order-by' && p.orderBy !== null)
+    return `${what} by ${dateFromNow(p.orderBy, now, timeZone)}`;
+  return 'not yet';
+}
