@@ -89,9 +89,11 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
   const calendar = createDigestCalendar();
 
   /** Claims a post in one IMMEDIATE transaction that first re-checks the lease. */
-  const claimIfLeader = store.db.transaction((key: PostKey, dueAt: number, replies: Reply[], now: number) =>
-    lease.holds(now) ? posts.claim(key, dueAt, replies, holder, now) : false,
-  );
+  const claimIfLeader = store.db.transaction((key: PostKey, dueAt: number, replies: Reply[], now: number) => {
+    // Losing the lease mid-tick aborts the caller's transaction too (a notice's state change rolls back).
+    if (!lease.holds(now)) throw new LeaseLostError(holder);
+    return posts.claim(key, dueAt, replies, holder, now);
+  });
   const claim = (key: PostKey, replies: Reply[], dueAt: number, now: number): boolean => {
     const claimed = claimIfLeader.immediate(key, dueAt, replies, now);
     if (claimed) log({ type: 'claimed', post: key });
@@ -148,10 +150,16 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
       log({ type: 'not-leader', holder });
       return { leader: false, delivered: [] };
     }
-    for (const team of store.teams.list()) {
-      for (const occurrence of calendar.due(team, now, graceMs + DAY)) claimDigest(team, occurrence, now);
+    try {
+      for (const team of store.teams.list()) {
+        for (const occurrence of calendar.due(team, now, graceMs + DAY)) claimDigest(team, occurrence, now);
+      }
+      options.claimNotices?.(store, now, (key, replies, dueAt) => claim(key, replies, dueAt, now));
+    } catch (error) {
+      if (!(error instanceof LeaseLostError)) throw error;
+      log({ type: 'not-leader', holder });
+      return { leader: false, delivered: [] };
     }
-    options.claimNotices?.(store, now, (key, replies, dueAt) => claim(key, replies, dueAt, now));
     return { leader: true, delivered: await deliverPending(now) };
   }
 
@@ -166,6 +174,13 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
     },
     release: () => lease.release(),
   };
+}
+
+/** Thrown inside a claim when another process took the lease; ends the tick without posting. */
+export class LeaseLostError extends Error {
+  constructor(holder: string) {
+    super(`scheduler ${holder} no longer holds the lease`);
+  }
 }
 
 /** The key a platform may deduplicate on: the same for every retry of one post. */

@@ -1,0 +1,197 @@
+/**
+ * What a digest says about a team's tanks, section by section, each a list of short lines, computed from
+ * `tankStatus` (bot/tank-status.ts) and never from the engine directly. Pure: `now` is an argument.
+ */
+import { DateTime } from 'luxon';
+import {
+  formatChange,
+  formatDate,
+  formatDuration,
+  formatPercent,
+  formatVolume,
+  formatWhen,
+} from '../replies/format.js';
+import type { TankStatus } from '../tank-status.js';
+
+const HOUR = 3_600_000;
+
+/** "T4" or "T4 Ridge diesel": the code people type, with the name when it says more. */
+export function tankLabel(status: TankStatus): string {
+  const { code, name } = status.tank;
+  return name && name.toLowerCase() !== code.toLowerCase() ? `${code} ${name}` : code;
+}
+
+/** Tanks with a runway first, shortest first (ties by code); those without one after, by code. */
+export function byRunway(statuses: readonly TankStatus[]): TankStatus[] {
+  const days = (s: TankStatus) => s.runway?.days ?? Number.POSITIVE_INFINITY;
+  return [...statuses].sort((a, b) => days(a) - days(b) || a.tank.code.localeCompare(b.tank.code));
+}
+
+/** The runway table's row for one tank: tank, site, level, runway (with its range), what to do. */
+export function runwayRow(status: TankStatus, now: number, zone: string): string[] {
+  const level = status.latest ? formatPercent(status.latest.fraction) : '-';
+  const r = status.runway;
+  const runway =
+    status.problem !== undefined
+      ? 'cannot compute'
+      : r?.days === null || r?.days === undefined
+        ? 'no estimate yet'
+        : formatDuration({
+            value: r.days,
+            ...(r.low !== null ? { low: r.low } : {}),
+            ...(r.high !== null ? { high: r.high } : {}),
+          });
+  return [tankLabel(status), status.tank.site ?? '', level, runway, actionWord(status, now, zone)];
+}
+
+function actionWord(status: TankStatus, now: number, zone: string): string {
+  const plan = status.refill;
+  if (!plan || plan.verdict === 'no-order-needed') return '';
+  const verb = plan.mode === 'pick-up' ? 'pick-up' : 'order';
+  if (plan.verdict === 'order-now' || (plan.orderBy !== null && plan.orderBy <= endOfLocalDay(now, zone))) {
+    return `${verb} today`;
+  }
+  return plan.orderBy === null ? '' : `${verb} by ${formatDate(plan.orderBy, zone, now)}`;
+}
+
+export function endOfLocalDay(now: number, zone: string): number {
+  return DateTime.fromMillis(now, { zone }).endOf('day').toMillis();
+}
+
+/** Tanks whose plan says order (or book a pick-up) today: the order is due now or before midnight local. */
+export function dueToday(statuses: readonly TankStatus[], now: number, zone: string): TankStatus[] {
+  const end = endOfLocalDay(now, zone);
+  return statuses.filter((s) => {
+    const plan = s.refill;
+    return (
+      plan !== undefined && (plan.verdict === 'order-now' || (plan.orderBy !== null && plan.orderBy <= end))
+    );
+  });
+}
+
+/**
+ * "Ridge Pump Station, diesel: 1,200 gal (GEN1 700 gal, GEN2 500 gal)": orders due today, one line per site
+ * and product (tanks that can share one delivery), largest group first.
+ */
+export function orderLines(due: readonly TankStatus[]): string[] {
+  const groups = new Map<string, TankStatus[]>();
+  for (const s of due) {
+    const mode = s.refill?.mode === 'pick-up' ? 'pick-up' : 'delivery';
+    const key = [s.tank.site ?? 'no site', s.tank.product ?? 'product not set', mode, s.volumeUnit].join(
+      '\u0000',
+    );
+    groups.set(key, [...(groups.get(key) ?? []), s]);
+  }
+  const lines = [...groups.entries()].map(([key, tanks]) => {
+    const [site, product, mode, unit] = key.split('\u0000') as [string, string, string, string];
+    const quantities = tanks.map((s) => s.refill?.quantity ?? null);
+    const known = quantities.filter((q): q is number => q !== null);
+    const each = tanks.map((s, i) => {
+      const q = quantities[i];
+      return `${s.tank.code} ${q === null || q === undefined ? 'quantity unknown' : formatVolume(q, unit)}`;
+    });
+    const total = known.reduce((a, b) => a + b, 0);
+    const head = `${site}, ${product}${mode === 'pick-up' ? ' (pick-up)' : ''}`;
+    const text =
+      tanks.length === 1
+        ? `${head}: ${each[0]}`
+        : `${head}: ${formatVolume(total, unit)} (${each.join(', ')})`;
+    return { total, text };
+  });
+  return lines.sort((a, b) => b.total - a.total || a.text.localeCompare(b.text)).map((l) => l.text);
+}
+
+/** The median gap between the tank's last readings (up to 10 gaps), or undefined with fewer than 3 readings. */
+export function usualInterval(status: TankStatus): number | undefined {
+  const times = status.history.slice(-11).map((h) => h.time);
+  if (times.length < 3) return undefined;
+  const gaps = times
+    .slice(1)
+    .map((t, i) => t - times[i]!)
+    .sort((a, b) => a - b);
+  const mid = Math.floor(gaps.length / 2);
+  return gaps.length % 2 === 1 ? gaps[mid]! : (gaps[mid - 1]! + gaps[mid]!) / 2;
+}
+
+/**
+ * Overdue: the last reading is older than 1.5 times the tank's usual interval and at least an hour past it
+ * (our own rule, so a daily reading taken at 08:00 is not overdue at a 07:00 digest, and a 15-minute sensor
+ * is not overdue after one late sample). A tank with no reading at all is listed too.
+ */
+export function overdueLines(statuses: readonly TankStatus[], now: number): string[] {
+  const lines: { age: number; text: string }[] = [];
+  for (const s of statuses) {
+    if (!s.latest) {
+      if (s.problem === undefined)
+        lines.push({ age: Number.POSITIVE_INFINITY, text: `${tankLabel(s)}: no readings yet` });
+      continue;
+    }
+    const usual = usualInterval(s);
+    const age = now - s.latest.time;
+    if (usual === undefined || usual <= 0 || age <= Math.max(1.5 * usual, usual + HOUR)) continue;
+    lines.push({
+      age,
+      text: `${tankLabel(s)}: last read ${ageWords(age)} ago (usually every ${ageWords(usual)})`,
+    });
+  }
+  return lines.sort((a, b) => b.age - a.age).map((l) => l.text);
+}
+
+function ageWords(ms: number): string {
+  const hours = ms / HOUR;
+  if (hours < 1.5) return `${Math.max(1, Math.round(ms / 60_000))} min`;
+  if (hours < 48) return `${Math.round(hours)} hours`;
+  return `${Math.round(hours / 24)} days`;
+}
+
+/** Deliveries (and pick-ups) that ended after `since`, newest first, saying which were found but not logged. */
+export function deliveryLines(
+  statuses: readonly TankStatus[],
+  since: number,
+  now: number,
+  zone: string,
+): string[] {
+  const lines: { end: number; text: string }[] = [];
+  for (const s of statuses) {
+    for (const e of s.events) {
+      if (e.end <= since || e.end > now || (e.type !== 'delivery' && e.type !== 'pickup')) continue;
+      const amount = formatChange(e.type === 'delivery' ? e.volume : -e.volume, s.volumeUnit);
+      const note = e.logged ? '' : ' (found in the readings, not logged)';
+      lines.push({ end: e.end, text: `${tankLabel(s)} ${amount}, ${formatWhen(e.end, now, zone)}${note}` });
+    }
+  }
+  return lines.sort((a, b) => b.end - a.end).map((l) => l.text);
+}
+
+/** Withdrawals nobody logged since `since`: a possible leak or theft, worth a look. Largest first. */
+export function dropLines(
+  statuses: readonly TankStatus[],
+  since: number,
+  now: number,
+  zone: string,
+): string[] {
+  const lines: { volume: number; text: string }[] = [];
+  for (const s of statuses) {
+    for (const e of s.events) {
+      if (e.type !== 'withdrawal' || e.logged || e.end <= since || e.end > now) continue;
+      const amount = formatChange(-Math.abs(e.volume), s.volumeUnit);
+      lines.push({
+        volume: Math.abs(e.volume),
+        text: `${tankLabel(s)} ${amount}, ${formatWhen(e.start, now, zone)}`,
+      });
+    }
+  }
+  return lines.sort((a, b) => b.volume - a.volume).map((l) => l.text);
+}
+
+/** Tanks whose latest reading is above the safe fill level, and tanks whose figures cannot be computed. */
+export function problemLines(statuses: readonly TankStatus[]): string[] {
+  const lines: string[] = [];
+  for (const s of statuses) {
+    if (s.problem !== undefined) lines.push(s.problem);
+    else if (s.overSafeFill && s.latest) {
+      lines.push(`${tankLabel(s)} is at ${formatPercent(s.latest.fraction)}, above its safe fill level`);
+    }
+  }
+  return lines;
+}

@@ -1,0 +1,161 @@
+/**
+ * The morning digest as one Reply that fits one message on every platform: Slack (text under 4,000
+ * characters, 50 blocks) and Discord (2,000 characters of content, 6,000 across embeds, 25 fields, 1,024 per
+ * field) - limits from ../shared/docs/chat-platforms.md. Lists are cut with "and N more" until the plain-text
+ * form, the strictest of those, fits.
+ */
+import { cautionFor } from '../replies/cautions.js';
+import { formatDate } from '../replies/format.js';
+import { toPlainText } from '../replies/plainText.js';
+import type { Fact, Reply } from '../replies/reply.js';
+import type { Store } from '../store/open-store.js';
+import type { Team } from '../store/types.js';
+import { type TankStatus, tankStatus } from '../tank-status.js';
+import {
+  byRunway,
+  deliveryLines,
+  dropLines,
+  dueToday,
+  orderLines,
+  overdueLines,
+  problemLines,
+  runwayRow,
+} from './digest-sections.js';
+
+/** The plain-text budget: under Discord's 2,000-character message with room for a mention or a link. */
+export const DIGEST_MAX_CHARS = 1_900;
+const DAY = 86_400_000;
+
+export interface DigestInput {
+  teamName: string | null;
+  timeZone: string;
+  demo: boolean;
+  now: number;
+  /** Deliveries and drops after this instant are news (the previous digest; a day back when none). */
+  since: number;
+  statuses: readonly TankStatus[];
+}
+
+interface Sections {
+  table: string[][];
+  orders: string[];
+  drops: string[];
+  problems: string[];
+  overdue: string[];
+  deliveries: string[];
+}
+
+/** Keeps `max` items and says how many were left out. */
+function cut(lines: readonly string[], max: number): string[] {
+  if (lines.length <= max) return [...lines];
+  const kept = lines.slice(0, Math.max(0, max));
+  return [...kept, `and ${lines.length - kept.length} more`];
+}
+
+function build(
+  input: DigestInput,
+  s: Sections,
+  caution: string | undefined,
+  rows: number,
+  items: number,
+): Reply {
+  const attention = s.orders.length + s.drops.length + s.problems.length + s.overdue.length;
+  const day = formatDate(input.now, input.timeZone, input.now);
+  const who = input.teamName ? ` for ${input.teamName}` : '';
+  const demo = input.demo ? ' (DEMO DATA)' : '';
+  const count = input.statuses.length;
+  const headline =
+    attention === 0
+      ? `All clear${who}, ${day}${demo}: nothing to order today, no overdue readings, no unexplained drops (${count} ${count === 1 ? 'tank' : 'tanks'}).`
+      : `Morning digest${who}, ${day}${demo}: ${attention} ${attention === 1 ? 'thing needs' : 'things need'} attention.`;
+  const facts: Fact[] = [];
+  const add = (label: string, lines: string[]) => {
+    if (lines.length > 0) facts.push({ label, value: cut(lines, items).join('; ') });
+  };
+  add('Order today', s.orders);
+  if (s.drops.length > 0) {
+    facts.push({
+      label: 'Unexplained drops',
+      value: `${cut(s.drops, items).join('; ')} (possible leak or theft: check the tank, log any use)`,
+    });
+  }
+  add('Check', s.problems);
+  add('Overdue readings', s.overdue);
+  add('Deliveries since the last digest', s.deliveries);
+  const table = s.table.length
+    ? {
+        columns: ['Tank', 'Site', 'Level', 'Runway', 'Action'],
+        rows:
+          s.table.length > rows
+            ? [...s.table.slice(0, rows), [`and ${s.table.length - rows} more`, '', '', '', '']]
+            : s.table,
+      }
+    : undefined;
+  return {
+    kind: 'digest',
+    visibility: 'channel',
+    headline,
+    ...(facts.length ? { facts } : {}),
+    ...(table ? { table } : {}),
+    ...(caution ? { caution } : {}),
+  };
+}
+
+/** Brief cautions for the hazardous tanks that need action today (at most two, deduplicated). */
+function cautionsFor(input: DigestInput, due: readonly TankStatus[]): string | undefined {
+  const texts = new Set<string>();
+  for (const s of input.statuses) {
+    if (s.overSafeFill) texts.add(cautionFor(s.tank.product ?? undefined, 'overfill') ?? '');
+  }
+  for (const s of due) texts.add(cautionFor(s.tank.product ?? undefined, 'low') ?? '');
+  texts.delete('');
+  // Each caution ends with the same deferral to local codes: say every sentence once.
+  const sentences = new Set([...texts].slice(0, 2).flatMap((t) => t.split(/(?<=\.)\s+/)));
+  return sentences.size ? [...sentences].join(' ') : undefined;
+}
+
+export function composeDigest(input: DigestInput): Reply {
+  const zone = input.timeZone;
+  const due = dueToday(input.statuses, input.now, zone);
+  const sections: Sections = {
+    table: byRunway(input.statuses).map((s) => runwayRow(s, input.now, zone)),
+    orders: orderLines(due),
+    drops: dropLines(input.statuses, input.since, input.now, zone),
+    problems: problemLines(input.statuses),
+    overdue: overdueLines(input.statuses, input.now),
+    deliveries: deliveryLines(input.statuses, input.since, input.now, zone),
+  };
+  const caution = cautionsFor(input, due);
+  // Shrink the lists step by step until the plain text fits; the last step always fits in practice.
+  const steps: [number, number][] = [
+    [15, 6],
+    [10, 4],
+    [6, 3],
+    [3, 2],
+    [1, 1],
+    [0, 0],
+  ];
+  let reply = build(input, sections, caution, 15, 6);
+  for (const [rows, items] of steps) {
+    reply = build(input, sections, caution, rows, items);
+    if (toPlainText(reply).length <= DIGEST_MAX_CHARS) return reply;
+  }
+  return reply;
+}
+
+/** The digest of a team from the store: every live tank's status at `now`. */
+export function digestFromStore(store: Store, team: Team, now: number, since: number | null): Reply {
+  const statuses: TankStatus[] = [];
+  for (const tank of store.tanks.list(team.id)) {
+    const status = tankStatus(store, team.id, tank.id, now);
+    if (status) statuses.push(status);
+  }
+  return composeDigest({
+    teamName: team.name,
+    timeZone: team.timeZone,
+    demo: team.demo,
+    now,
+    since: since ?? now - DAY,
+    statuses,
+  });
+}
