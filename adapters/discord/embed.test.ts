@@ -71,6 +71,29 @@ describe('replyEmbed', () => {
   });
 });
 
+describe('wide tables', () => {
+  it('become one line per row, first cell bold, markdown in cells escaped', () => {
+    const wide: Reply = {
+      kind: 'answer',
+      visibility: 'channel',
+      headline: 'All tanks',
+      table: {
+        columns: ['Tank', 'Site', 'Level', 'Runway', 'Action'],
+        rows: [
+          ['T4', 'Ridge Pump Station', '85%', '27 hours (0-103)', 'order today'],
+          ['NY_1', 'North Yard', '40%', '9 days (7-12)', '*check*'],
+        ],
+      },
+    };
+    expect(replyEmbed(wide).description).toBe(
+      [
+        '**T4** · Ridge Pump Station · 85% · 27 hours (0-103) · order today',
+        '**NY\\_1** · North Yard · 40% · 9 days (7-12) · \\*check\\*',
+      ].join('\n'),
+    );
+  });
+});
+
 describe('action buttons', () => {
   it('become buttons whose custom id carries the command', () => {
     const [row] = actionRows(answer);

@@ -43,16 +43,38 @@ export function truncate(text: string, max: number): string {
   return chars.length <= max ? text : `${chars.slice(0, max - 1).join('')}…`;
 }
 
-/** The table as a code block that fits `budget` characters, saying how many rows were left out. */
+/**
+ * Wider than this, a code block wraps into a jumble on a phone (Discord's mobile code blocks show roughly
+ * 40-60 monospace characters; from memory), so a wide table becomes one line per row instead.
+ */
+export const MAX_CODE_WIDTH = 56;
+
+/** Markdown characters in a cell would turn into formatting outside a code block. */
+const escapeMarkdown = (text: string) => text.replace(/([\\*_`~|[\]])/g, '\\$1');
+
+function rowLines(reply: Reply): string[] {
+  const rows = reply.table?.rows ?? [];
+  return rows.map((row) => {
+    const [first = '', ...rest] = row.map((c) => c.trim()).filter((c) => c !== '');
+    return [`**${escapeMarkdown(first)}**`, ...rest.map(escapeMarkdown)].join(' · ');
+  });
+}
+
+/** The table as a code block (or, when too wide, a line per row) that fits `budget` characters. */
 function tableBlock(reply: Reply, budget: number): string {
   if (!reply.table) return '';
   const [header = '', rule = '', ...rows] = tableToText(reply.table);
-  const wrap = (lines: string[], more: number) =>
-    `\`\`\`\n${lines.join('\n').replaceAll('```', "'''")}\n\`\`\`${more > 0 ? `\n…and ${more} more` : ''}`;
-  let shown = rows.length;
-  while (shown > 0 && wrap([header, rule, ...rows.slice(0, shown)], rows.length - shown).length > budget)
-    shown--;
-  const block = wrap([header, rule, ...rows.slice(0, shown)], rows.length - shown);
+  const wide = Math.max(...[header, ...rows].map((l) => [...l].length)) > MAX_CODE_WIDTH;
+  const lines = wide ? rowLines(reply) : rows;
+  const wrap = (shown: string[], more: number) => {
+    const body = wide
+      ? shown.join('\n')
+      : `\`\`\`\n${[header, rule, ...shown].join('\n').replaceAll('```', "'''")}\n\`\`\``;
+    return `${body}${more > 0 ? `\n…and ${more} more` : ''}`;
+  };
+  let shown = lines.length;
+  while (shown > 0 && wrap(lines.slice(0, shown), lines.length - shown).length > budget) shown--;
+  const block = wrap(lines.slice(0, shown), lines.length - shown);
   return block.length <= budget ? block : '';
 }
 

@@ -196,8 +196,11 @@ export function levelChartSpec(chart: LevelChart): TopLevelSpec {
             fontSize: 20,
             fontWeight: 'bold',
             align: 'left',
+            baseline: 'bottom',
             dx: 6,
-            y: 14,
+            // At the foot of the plot: deliveries sit in the measured part, where the level is high, so the
+            // foot is clear there, and the reference-line labels stay at the top-left.
+            y: CHART_SIZE.height - 8,
           },
           encoding: { x, text: { field: 'label' } },
         },

@@ -1,0 +1,279 @@
+/**
+ * The Discord adapter end to end: discord.js 14 logs in to a local gateway websocket and calls a local REST
+ * stand-in (chat-platforms.md, "Testing both adapters with no internet"); the real bot answers on a
+ * temporary SQLite file. Nothing inside discord.js is mocked: the protocol on the wire is what is checked.
+ */
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { DateTime } from 'luxon';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createDiscordAdapter, type DiscordAdapter } from '../../adapters/discord/discordAdapter.js';
+import { createBot } from '../../bot/bot.js';
+import { digestFromStore } from '../../bot/schedule/digest.js';
+import { createScheduler } from '../../bot/schedule/scheduler.js';
+import { openStore, type Store } from '../../bot/store/index.js';
+import { tankNamesOf } from '../../bot/tank-lookup.js';
+import { type GatewayStandIn, startGatewayStandIn } from './gatewayStandIn.js';
+import { autocomplete, buttonClick, chatInput, modalSubmit, type Where } from './interactionPayloads.js';
+import { type RecordedCall, type RestStandIn, startRestStandIn } from './restStandIn.js';
+
+const APP = '700000000000000001';
+const GUILD = '710000000000000002';
+const OTHER_GUILD = '720000000000000003';
+const CHANNEL = '730000000000000004';
+const COMMAND = 'tankrunway';
+const TEAM = `discord:${GUILD}`;
+const where: Where = { applicationId: APP, guildId: GUILD, channelId: CHANNEL, userId: '740000000000000005' };
+
+/** Demo scenario of our own invention: Kestrel Valley Water Co-op, the diesel day tank at Ridge Pump Station. */
+const T4_FORM = {
+  code: 'T4',
+  shape: 'vertical-cylinder diameter=48in length=72in',
+  unit: 'gal',
+  product: 'diesel',
+  site: 'Ridge Pump Station',
+};
+
+interface Embed {
+  title?: string;
+  description?: string;
+  fields?: { name: string; value: string }[];
+  image?: { url: string };
+}
+interface Callback {
+  type: number;
+  data?: {
+    embeds?: Embed[];
+    flags?: number;
+    custom_id?: string;
+    choices?: { name: string; value: string }[];
+  };
+}
+
+let dir: string;
+let store: Store;
+let gateway: GatewayStandIn;
+let rest: RestStandIn;
+let adapter: DiscordAdapter;
+const logged: string[] = [];
+
+/** Sends an interaction and returns what the client answered: the callback, and the edit after a defer. */
+async function interact(payload: {
+  id: string;
+  token: string;
+}): Promise<{ callback: Callback; edit?: RecordedCall }> {
+  gateway.dispatch('INTERACTION_CREATE', payload);
+  const call = await rest.waitFor((c) => c.path === `/interactions/${payload.id}/${payload.token}/callback`);
+  const callback = call.body as Callback;
+  if (callback.type !== 5) return { callback };
+  const edit = await rest.waitFor(
+    (c) => c.method === 'PATCH' && c.path === `/webhooks/${APP}/${payload.token}/messages/@original`,
+  );
+  return { callback, edit };
+}
+
+/** Polls a condition that another party (the client) will make true. */
+async function until(condition: () => boolean, timeoutMs = 5_000): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  while (!condition()) {
+    if (Date.now() > deadline) throw new Error('condition not met in time');
+    await new Promise((resolve) => setTimeout(resolve, 20));
+  }
+}
+
+const firstEmbed = (c: Callback): Embed => c.data?.embeds?.[0] ?? {};
+const tankT4 = () => store.tanks.byCode(TEAM, 'T4');
+const readingsOfT4 = () => {
+  const tank = tankT4();
+  return tank ? store.readings.forTank(TEAM, tank.id, { includeHeld: true }) : [];
+};
+
+beforeAll(async () => {
+  dir = mkdtempSync(join(tmpdir(), 'tankrunway-discord-'));
+  store = openStore(join(dir, 'bot.sqlite'));
+  const bot = createBot({ store });
+  gateway = await startGatewayStandIn({ applicationId: APP });
+  rest = await startRestStandIn({ gatewayUrl: gateway.url, applicationId: APP });
+  adapter = createDiscordAdapter({
+    token: 'stand-in.bot.token',
+    applicationId: APP,
+    apiUrl: rest.apiUrl,
+    command: `/${COMMAND}`,
+    guildId: GUILD,
+    bot,
+    tankNames: (team) => tankNamesOf(store.tanks.list(team)),
+    log: (line) => logged.push(line),
+  });
+  await adapter.start();
+});
+
+afterAll(async () => {
+  await adapter?.stop();
+  await gateway?.close();
+  await rest?.close();
+  store?.close();
+  if (dir) rmSync(dir, { recursive: true, force: true });
+});
+
+describe('Discord adapter against local gateway and REST stand-ins', () => {
+  it('identifies over the gateway and registers the command in the development guild by bulk PUT', async () => {
+    expect(gateway.identifies).toHaveLength(1);
+    const put = await rest.waitFor((c) => c.method === 'PUT');
+    expect(put.path).toBe(`/applications/${APP}/guilds/${GUILD}/commands`);
+    const [command] = put.body as { name: string; options: { name: string }[] }[];
+    expect(command?.name).toBe(COMMAND);
+    expect(command?.options.map((o) => o.name)).toContain('log');
+  });
+
+  it('sets up a tank through the modal, which becomes an add-tank message', async () => {
+    const open = await interact(chatInput(where, COMMAND, 'setup'));
+    expect(open.callback.type).toBe(9);
+    expect(open.callback.data?.custom_id).toBe('tr-setup');
+    const submitted = await interact(modalSubmit(where, 'tr-setup', T4_FORM));
+    expect(submitted.callback.type).toBe(4);
+    expect(firstEmbed(submitted.callback).title).toContain('T4');
+    expect(tankT4()?.product).toBe('diesel');
+  });
+
+  it('sets the team time zone explicitly', async () => {
+    const { callback } = await interact(chatInput(where, COMMAND, 'timezone', { zone: 'America/Chicago' }));
+    expect(callback.type).toBe(4);
+    expect(store.teams.get(TEAM)?.timeZone).toBe('America/Chicago');
+  });
+
+  it('logs a reading and confirms it in the channel', async () => {
+    const { callback } = await interact(
+      chatInput(where, COMMAND, 'log', { tank: 'T4', reading: '60in', when: '2026-11-02 07:30' }),
+    );
+    expect(callback.type).toBe(4);
+    expect(callback.data?.flags ?? 0).toBe(0);
+    expect(firstEmbed(callback).title).toMatch(/^T4: /);
+    expect(readingsOfT4()).toHaveLength(1);
+    const local = DateTime.fromMillis(readingsOfT4()[0]?.time ?? 0, { zone: 'America/Chicago' });
+    expect(local.toFormat('yyyy-MM-dd HH:mm')).toBe('2026-11-02 07:30');
+  });
+
+  it('stores a replayed interaction once', async () => {
+    const payload = chatInput(where, COMMAND, 'log', {
+      tank: 'T4',
+      reading: '52.3in',
+      when: '2026-11-05 08:10',
+    });
+    const first = await interact(payload);
+    // The gateway delivers the same interaction again (as after a resume): same id, same token.
+    gateway.dispatch('INTERACTION_CREATE', payload);
+    const callbackPath = `/interactions/${payload.id}/${payload.token}/callback`;
+    await until(() => rest.calls.filter((c) => c.path === callbackPath).length === 2);
+    expect(readingsOfT4()).toHaveLength(2);
+    expect(firstEmbed(first.callback).title).toMatch(/^T4: /);
+  });
+
+  it('logs a delivery and another reading, then answers a question with an embed and the chart attached', async () => {
+    const delivery = await interact(
+      chatInput(where, COMMAND, 'delivery', { tank: 'T4', amount: '150 gal', when: '2026-11-06 10:00' }),
+    );
+    expect(delivery.callback.type).toBe(4);
+    await interact(
+      chatInput(where, COMMAND, 'log', { tank: 'T4', reading: '61.2in', when: '2026-11-09 07:45' }),
+    );
+    const { callback, edit } = await interact(chatInput(where, COMMAND, 'ask', { tank: 'T4' }));
+    expect(callback.type).toBe(5); // deferred: the chart may take longer than Discord waits
+    const embed = (edit?.body as { embeds?: Embed[] } | undefined)?.embeds?.[0];
+    expect(embed?.title).toContain('T4');
+    expect(JSON.stringify(embed?.fields)).toMatch(/gal/);
+    expect(embed?.fields?.some((f) => f.name === 'Caution' && /local codes/.test(f.value))).toBe(true);
+    expect(embed?.image?.url).toBe('attachment://level-chart-1.png');
+    const png = edit?.files[0];
+    expect(png?.name).toBe('level-chart-1.png');
+    // PNG signature (W3C PNG specification, section 5.2).
+    expect([...(png?.bytes.subarray(0, 8) ?? [])]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+  });
+
+  it('completes tank names for the guild that asks, and only its own', async () => {
+    const { callback } = await interact(autocomplete(where, COMMAND, 'ask', { tank: 't' }, 'tank'));
+    expect(callback.type).toBe(8);
+    expect(callback.data?.choices?.map((c) => c.value)).toContain('T4');
+    const other = await interact(
+      autocomplete({ ...where, guildId: OTHER_GUILD }, COMMAND, 'ask', { tank: 't' }, 'tank'),
+    );
+    expect(other.callback.data?.choices).toEqual([]);
+  });
+
+  it('answers a bad option privately with what to fix, storing nothing', async () => {
+    const before = readingsOfT4().length;
+    const { callback } = await interact(
+      chatInput(where, COMMAND, 'log', { tank: 'T4', reading: '12 parsecs' }),
+    );
+    expect(callback.type).toBe(4);
+    expect(callback.data?.flags).toBe(64);
+    expect(firstEmbed(callback).title?.length).toBeGreaterThan(10);
+    expect(readingsOfT4()).toHaveLength(before);
+  });
+
+  it('runs a button press as the message it carries', async () => {
+    const { callback, edit } = await interact(buttonClick(where, 'tr:T4?'));
+    const embed = edit ? (edit.body as { embeds: Embed[] }).embeds[0] : firstEmbed(callback);
+    expect(embed?.title).toContain('T4');
+  });
+
+  it('waits out a 429 from REST and still answers', async () => {
+    rest.rateLimit(/^POST \/interactions\/.*\/callback$/, 0.3);
+    const payload = chatInput(where, COMMAND, 'help', {});
+    const { callback } = await interact(payload);
+    expect(callback.type).toBe(4);
+    const tries = rest.calls.filter(
+      (c) => c.path === `/interactions/${payload.id}/${payload.token}/callback`,
+    );
+    expect(tries.map((c) => c.limited)).toEqual([true, false]);
+  });
+
+  it('posts a digest from the scheduler to the channel, once, with a nonce', async () => {
+    await interact(chatInput(where, COMMAND, 'settings', { setting: 'digest 07:00 here' }));
+    const scheduler = createScheduler({
+      store,
+      clock: () => Date.now(),
+      graceMinutes: 120,
+      composeDigest: digestFromStore,
+      deliver: (_team, channel, replies, meta) => adapter.deliver(channel, replies, { key: meta.key }),
+    });
+    const tomorrow = DateTime.now().setZone('America/Chicago').plus({ days: 1 }).set({ hour: 7, minute: 5 });
+    const report = await scheduler.tick(tomorrow.toMillis());
+    expect(report.delivered).toHaveLength(1);
+    const post = await rest.waitFor((c) => c.method === 'POST' && c.path === `/channels/${CHANNEL}/messages`);
+    const body = post.body as { embeds: Embed[]; nonce: string; enforce_nonce: boolean };
+    expect(body.enforce_nonce).toBe(true);
+    expect(body.nonce.length).toBeLessThanOrEqual(25);
+    expect(body.embeds[0]?.title?.length).toBeGreaterThan(0);
+    await scheduler.tick(tomorrow.plus({ minutes: 1 }).toMillis());
+    expect(rest.calls.filter((c) => c.path === `/channels/${CHANNEL}/messages`)).toHaveLength(1);
+    scheduler.release();
+  });
+
+  it('does not hold up another guild while one channel is rate limited', async () => {
+    rest.rateLimit(/^POST \/channels\/750000000000000006\/messages$/, 1);
+    const notice = {
+      kind: 'notice' as const,
+      visibility: 'channel' as const,
+      headline: 'T4 reaches its reorder point tomorrow',
+    };
+    const started = Date.now();
+    const finished: Record<string, number> = {};
+    await Promise.all([
+      adapter.deliver('750000000000000006', [notice], { key: 'slow' }).then(() => {
+        finished.slow = Date.now() - started;
+      }),
+      adapter.deliver('760000000000000007', [notice], { key: 'fast' }).then(() => {
+        finished.fast = Date.now() - started;
+      }),
+    ]);
+    expect(finished.slow).toBeGreaterThanOrEqual(900);
+    expect(finished.fast).toBeLessThan(finished.slow ?? 0);
+    expect(finished.fast).toBeLessThan(800);
+  });
+
+  it('keeps running after a client error event', () => {
+    adapter.client.emit('error', new Error('stand-in failure'));
+    expect(logged.some((l) => l.includes('stand-in failure'))).toBe(true);
+  });
+});
