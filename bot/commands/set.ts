@@ -1,7 +1,6 @@
 import { toLitres } from '../../engine/units/index.js';
 import type { CommandOf, Setting } from '../language/command.js';
 import { unknownTankMessage } from '../language/tankName.js';
-import { formatNumber } from '../replies/format.js';
 import type { Reply } from '../replies/reply.js';
 import type { TankSettings } from '../store/types.js';
 import { findTank, tankNamesOf } from '../tank-lookup.js';
@@ -19,16 +18,16 @@ function tankSettingPatch(setting: Setting): { patch: TankSettings; said: string
       if ('percent' in t)
         return {
           patch: { threshold: { percent: t.percent } },
-          said: `threshold ${formatNumber(t.percent)}%`,
+          said: `threshold ${t.percent}%`,
         };
       if ('runwayDays' in t)
         return {
           patch: { threshold: { runwayDays: t.runwayDays } },
-          said: `threshold ${formatNumber(t.runwayDays)} days of use left`,
+          said: `threshold ${t.runwayDays} days of use left`,
         };
       return {
         patch: { threshold: { volume: toLitres(t.volume.value, t.volume.unit) } },
-        said: `threshold ${formatNumber(t.volume.value)} ${t.volume.unit}`,
+        said: `threshold ${t.volume.value} ${t.volume.unit}`,
       };
     }
     case 'lead-time':
@@ -38,7 +37,7 @@ function tankSettingPatch(setting: Setting): { patch: TankSettings; said: string
           businessDays: setting.businessDays,
           ...(setting.cutoffHour !== undefined ? { orderCutoffHour: setting.cutoffHour } : {}),
         },
-        said: `lead time ${formatNumber(setting.days)} ${setting.businessDays ? 'business ' : ''}days${setting.cutoffHour !== undefined ? `, orders after ${setting.cutoffHour}:00 count from the next day` : ''}`,
+        said: `lead time ${setting.days} ${setting.businessDays ? 'business ' : ''}days${setting.cutoffHour !== undefined ? `, orders after ${setting.cutoffHour}:00 count from the next day` : ''}`,
       };
     case 'order-cutoff':
       return { patch: { orderCutoffHour: setting.hour }, said: `order cut-off ${setting.hour}:00` };
@@ -50,17 +49,17 @@ function tankSettingPatch(setting: Setting): { patch: TankSettings; said: string
     case 'minimum-order':
       return {
         patch: { minimumOrder: toLitres(setting.volume.value, setting.volume.unit) },
-        said: `minimum order ${formatNumber(setting.volume.value)} ${setting.volume.unit}`,
+        said: `minimum order ${setting.volume.value} ${setting.volume.unit}`,
       };
     case 'order-increment':
       return {
         patch: { orderIncrement: toLitres(setting.volume.value, setting.volume.unit) },
-        said: `orders in steps of ${formatNumber(setting.volume.value)} ${setting.volume.unit}`,
+        said: `orders in steps of ${setting.volume.value} ${setting.volume.unit}`,
       };
     case 'safe-fill':
       return {
         patch: { safeFillPercent: setting.percent },
-        said: `safe fill ${formatNumber(setting.percent)}%`,
+        said: `safe fill ${setting.percent}%`,
       };
     default:
       return undefined;
