@@ -10,6 +10,7 @@ import { fail, ok, type Result } from '../../engine/result.js';
 import { fromLitres, isVolumeUnit, toLitres, toMetres, type VolumeUnit } from '../../engine/units/index.js';
 import { type CliCommand, type CliIo, UsageError } from '../io.js';
 import { parseReadingsCsv, type ReadingColumn, type ReadingsTable } from '../readings-csv.js';
+import { refillOption, refillSummary } from '../refill-option.js';
 
 export const analyzeArgOptions = {
   tank: { type: 'string' },
@@ -18,6 +19,8 @@ export const analyzeArgOptions = {
   target: { type: 'string' },
   'target-percent': { type: 'string' },
   filling: { type: 'boolean', default: false },
+  plan: { type: 'string' },
+  now: { type: 'string' },
   json: { type: 'boolean', default: false },
   help: { type: 'boolean', short: 'h', default: false },
 } as const;
@@ -236,13 +239,15 @@ export const analyzeCommand: CliCommand = {
   async run(argv, io) {
     if (argv.includes('--help') || argv.includes('-h')) {
       io.stdout.write(
-        'usage: tankrunway analyze READINGS.csv [--tank FILE] [--volume-unit U] [--capacity N] [--target N | --target-percent P] [--filling] [--json]\n',
+        'usage: tankrunway analyze READINGS.csv [--tank FILE] [--volume-unit U] [--capacity N] [--target N | --target-percent P] [--filling] [--plan SETTINGS.json [--now ISO]] [--json]\n',
       );
       return 0;
     }
     const { values, options, table } = await loadAnalysisInput(argv, io);
-    const { output } = buildAnalyzeOutput(table, options);
-    io.stdout.write(values.json ? `${JSON.stringify(output)}\n` : summary(output));
+    const { analysis, output } = buildAnalyzeOutput(table, options);
+    const refill = await refillOption(values, options, analysis.points);
+    const full = refill ? { ...output, refill } : output;
+    io.stdout.write(values.json ? `${JSON.stringify(full)}\n` : summary(output) + refillSummary(refill));
     return 0;
   },
 };

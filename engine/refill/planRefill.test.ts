@@ -96,6 +96,9 @@ describe('planRefill', () => {
   it('has no dates when the tank is not being used', () => {
     const p = plan({ ...ridge, rate: 0, rateSigma: 2 });
     expect(p.verdict).toBe('no-order-needed');
+    // a supply tank whose rate is a little negative (noise) is not turned into a pick-up
+    expect(plan({ ...ridge, rate: -0.5 }).mode).toBe('delivery');
+    expect(plan({ ...ridge, rate: -0.5 }).orderBy).toBeNull();
     expect(p.orderBy).toBeNull();
     expect(p.thresholdAt).toBeNull();
     expect(p.deliveryBy).toBeNull();
@@ -124,6 +127,7 @@ describe('planRefill', () => {
       ...ridge,
       volume: 900,
       rate: -120,
+      filling: true,
       capacity: 3000,
       settings: { threshold: { percent: 80 }, leadTimeDays: 2, orderIncrement: 500, timeZone: zone },
     });

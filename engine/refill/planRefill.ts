@@ -22,7 +22,8 @@ export interface RefillInput {
   rateSigma: number;
   /** Litres; without it percent thresholds and the fill quantity cannot be worked out. */
   capacity?: number;
-  /** A waste tank: plan a pick-up instead. Default: filling when the rate is negative. */
+  /** A waste tank: plan a pick-up instead. Said by the caller: a noisy, slightly negative rate on a supply
+   * tank must not turn its plan into a pick-up. */
   filling?: boolean;
   /** Threshold, minimum and increment in litres. */
   settings: RefillSettingsInput;
@@ -71,7 +72,7 @@ export function planRefill(input: RefillInput): Result<RefillPlan> {
   const checked = checkInput(input);
   if (!checked.ok) return checked;
   const { capacity, volume } = checked.value;
-  const filling = input.filling ?? input.rate < 0;
+  const filling = input.filling ?? false;
   const flow = filling ? -input.rate : input.rate; // litres per day toward the threshold
   const safeFillVolume = capacity === undefined ? null : (capacity * settings.safeFillPercent) / 100;
 
