@@ -57,8 +57,9 @@ export function createSlackAdapter(options: SlackAdapterOptions): SlackAdapter {
     apiUrl: options.apiUrl,
     retryConfig: options.retryConfig,
     logger: options.logger,
+    logLevel,
   });
-  const clientOptions = { ...clients.options, logLevel };
+  const clientOptions = clients.options;
 
   let receiver: HTTPReceiver | SocketModeReceiver;
   if (options.appToken) {

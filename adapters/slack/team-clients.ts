@@ -4,7 +4,8 @@
  * (its own queue) for posting; interactive calls (views.open/publish, whose trigger expires in about 3 s) use a
  * client that fails fast on 429 instead of waiting.
  */
-import { type Logger, webApi } from '@slack/bolt';
+import type { Logger, LogLevel, webApi } from '@slack/bolt';
+import { webApi as web } from '@slack/bolt';
 
 export interface ClientSettings {
   token: string;
@@ -12,6 +13,7 @@ export interface ClientSettings {
   apiUrl?: string;
   retryConfig?: webApi.RetryOptions;
   logger?: Logger;
+  logLevel?: LogLevel;
 }
 
 export interface TeamClients {
@@ -31,11 +33,12 @@ export function createTeamClients(settings: ClientSettings): TeamClients {
     ...(settings.apiUrl ? { slackApiUrl: settings.apiUrl } : {}),
     ...(settings.retryConfig ? { retryConfig: settings.retryConfig } : {}),
     ...(settings.logger ? { logger: settings.logger } : {}),
+    ...(settings.logLevel ? { logLevel: settings.logLevel } : {}),
   };
   const clients = new Map<string, webApi.WebClient>();
   return {
     options,
-    interactive: new webApi.WebClient(settings.token, { ...options, rejectRateLimitedCalls: true }),
+    interactive: new web.WebClient(settings.token, { ...options, rejectRateLimitedCalls: true }),
     forTeam(teamId) {
       let client = clients.get(teamId);
       if (!client) {
@@ -43,7 +46,7 @@ export function createTeamClients(settings: ClientSettings): TeamClients {
           const oldest = clients.keys().next().value;
           if (oldest !== undefined) clients.delete(oldest);
         }
-        client = new webApi.WebClient(settings.token, options);
+        client = new web.WebClient(settings.token, options);
         clients.set(teamId, client);
       }
       return client;

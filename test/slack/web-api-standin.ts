@@ -123,7 +123,15 @@ export async function startWebApiStandIn(): Promise<WebApiStandIn> {
     const path = req.url ?? '/';
     const raw = await readBody(req);
     if (path.startsWith('/upload/')) {
-      uploads.set(path.slice('/upload/'.length), raw);
+      // The WebClient sends the bytes as multipart/form-data (one file part); keep the file itself.
+      const form = await new Response(raw, { headers: { 'content-type': req.headers['content-type'] ?? '' } })
+        .formData()
+        .catch(() => undefined);
+      const file = form ? [...form.values()].find((v) => v instanceof Blob) : undefined;
+      uploads.set(
+        path.slice('/upload/'.length),
+        file instanceof Blob ? Buffer.from(await file.arrayBuffer()) : raw,
+      );
       res.writeHead(200, { 'content-type': 'text/plain' }).end(`OK - ${raw.length}`);
       return;
     }
