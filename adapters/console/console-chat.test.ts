@@ -26,7 +26,12 @@ async function chat(lines: string[], start = Date.parse('2026-11-09T16:00:00Z'))
     team: 'console:local',
     user: 'ann',
     input: Readable.from([`${lines.join('\n')}\n`]),
-    output: { write: (chunk: string) => ((out += chunk), true) },
+    output: {
+      write: (chunk: string) => {
+        out += chunk;
+        return true;
+      },
+    },
     interactive: false,
     chartsDir: join(dir, 'charts'),
     clock: () => start,
