@@ -1,0 +1,128 @@
+// The load both the test and the bench send: slash commands from many simulated teams at once, each signed
+// as Slack signs it and POSTed to the running receiver. Shared so the bench measures what the test checks.
+import { performance } from 'node:perf_hooks';
+import { App, HTTPReceiver, LogLevel } from '@slack/bolt';
+import type { Bot } from '../../bot/bot.js';
+import { command, commandFields, signingSecret } from './harness.js';
+import { postSigned, slashCommandBody } from './signed-request.js';
+import type { WebApiStandIn } from './web-api-standin.js';
+
+export interface LoadCommand {
+  team: string;
+  channel: string;
+  user: string;
+  text: string;
+  id: string;
+}
+
+export interface LoadResult {
+  /** Time from sending each request to its HTTP answer (the ack), ms, in send order. */
+  ackMs: number[];
+  statuses: number[];
+  /** From the first send until every reply reached its response_url, ms. */
+  allRepliedMs: number;
+}
+
+/** `teams` teams with `tanksPerTeam` tanks each; the tanks are named T1..Tn in every team. */
+export const loadTeams = (teams: number) =>
+  Array.from({ length: teams }, (_, i) => `T0LOAD${String(i).padStart(3, '0')}`);
+
+/** Sets every team up through the bot (not timed): an admin and `tanks` vertical tanks. */
+export async function setUpLoadTeams(bot: Bot, teams: string[], tanks: number, now: number): Promise<void> {
+  for (const team of teams) {
+    for (let t = 1; t <= tanks; t++) {
+      const replies = await bot.handle({
+        team: `slack:${team}`,
+        channel: 'C0YARD',
+        user: 'U0ADMIN',
+        text: `add tank T${t} vertical-cylinder diameter=48in length=72in unit=gal product=water site="North Yard"`,
+        receivedAt: now,
+      });
+      const error = replies.find((r) => r.kind === 'error');
+      if (error) throw new Error(`load setup failed: ${error.headline}`);
+    }
+  }
+}
+
+/** One reading per tank, so arrival order cannot matter: every command logs a different tank. */
+export function loadCommands(teams: string[], tanks: number): LoadCommand[] {
+  return teams.flatMap((team, k) =>
+    Array.from({ length: tanks }, (_, t) => ({
+      team,
+      channel: 'C0YARD',
+      user: `U0OP${k}`,
+      text: `T${t + 1} ${40 + t}in`,
+      id: `load-${team}-${t}`,
+    })),
+  );
+}
+
+/** Fires every command at once and waits until each reply was posted to its response_url. */
+export async function fireLoad(
+  eventsUrl: string,
+  api: WebApiStandIn,
+  commands: LoadCommand[],
+): Promise<LoadResult> {
+  const start = performance.now();
+  const results = await Promise.all(
+    commands.map(async (c) => {
+      const sent = performance.now();
+      const res = await postSigned(
+        eventsUrl,
+        slashCommandBody(commandFields(c, api.responseUrl(c.id))),
+        'application/x-www-form-urlencoded',
+        {
+          secret: signingSecret,
+        },
+      );
+      return { ms: performance.now() - sent, status: res.status };
+    }),
+  );
+  const ids = new Set(commands.map((c) => c.id));
+  await api.waitFor(() => [...ids].every((id) => api.responses.some((r) => r.id === id)), 30_000);
+  return {
+    ackMs: results.map((r) => r.ms),
+    statuses: results.map((r) => r.status),
+    allRepliedMs: performance.now() - start,
+  };
+}
+
+/** The baseline: the same signed requests to a Bolt app whose command handler only acks. */
+export async function startBareBolt(
+  api: WebApiStandIn,
+): Promise<{ eventsUrl: string; stop(): Promise<void> }> {
+  const receiver = new HTTPReceiver({ signingSecret, logLevel: LogLevel.ERROR });
+  const app = new App({
+    token: 'xoxb-bare',
+    receiver,
+    clientOptions: { slackApiUrl: api.apiUrl },
+    logLevel: LogLevel.ERROR,
+  });
+  app.command(command, async ({ ack }) => {
+    await ack();
+  });
+  const server = (await app.start({ port: 0, host: '127.0.0.1' })) as import('node:http').Server;
+  const port = (server.address() as import('node:net').AddressInfo).port;
+  return { eventsUrl: `http://127.0.0.1:${port}/slack/events`, stop: () => app.stop() as Promise<void> };
+}
+
+export async function fireAcksOnly(
+  eventsUrl: string,
+  commands: LoadCommand[],
+  responseUrl: (id: string) => string,
+): Promise<number[]> {
+  return Promise.all(
+    commands.map(async (c) => {
+      const sent = performance.now();
+      await postSigned(
+        eventsUrl,
+        slashCommandBody(commandFields(c, responseUrl(c.id))),
+        'application/x-www-form-urlencoded',
+        {
+          secret: signingSecret,
+        },
+      );
+      return performance.now() - sent;
+    }),
+  );
+}

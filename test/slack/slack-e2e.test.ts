@@ -1,0 +1,261 @@
+// End to end: the real Slack adapter (Bolt, WebClient) and the real bot on a temporary SQLite store, driven
+// the way Slack drives an app (signed HTTP requests, a Web API that records every call). Demo names are our
+// own invented scenario (Kestrel Valley Water Co-op).
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { DateTime } from 'luxon';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { botScopes, scopeFor } from '../../adapters/slack/manifest.js';
+import { createBot } from '../../bot/bot.js';
+import { digestFromStore } from '../../bot/schedule/digest.js';
+import { createScheduler } from '../../bot/schedule/scheduler.js';
+import { openStore, type Store } from '../../bot/store/index.js';
+import { type SlackHarness, signingSecret, startSlackHarness } from './harness.js';
+import { slackSignature } from './signed-request.js';
+
+let dir: string;
+let store: Store;
+let h: SlackHarness;
+beforeAll(async () => {
+  dir = mkdtempSync(join(tmpdir(), 'tankrunway-slack-e2e-'));
+  store = openStore(join(dir, 'slack.sqlite'));
+  h = await startSlackHarness({ bot: createBot({ store }) });
+  h.api.users.set('U0ANA', { tz: 'America/Chicago' });
+});
+afterAll(async () => {
+  await h.close();
+  store.close();
+  rmSync(dir, { recursive: true, force: true });
+});
+
+const addHypo =
+  'add tank T4 vertical-cylinder diameter=48in length=72in unit=gal product="sodium hypochlorite" site="Mill Creek Lift Station"';
+let seq = 0;
+/** Sends a slash command and waits for its reply on the response_url. */
+async function say(team: string, text: string, channel = 'C0MILL', user = 'U0ANA') {
+  seq += 1;
+  const id = `say-${seq}`;
+  const res = await h.command({ team, channel, user, text, id });
+  expect(res.status).toBe(200);
+  return h.api.waitFor(() => h.api.responses.find((r) => r.id === id));
+}
+const readingsOf = (team: string) =>
+  store.tanks.list(team).flatMap((t) => store.readings.forTank(team, t.id, { includeHeld: true }));
+const mention = (team: string, channel: string, ts: string, text: string) => ({
+  type: 'app_mention',
+  user: 'U0ANA',
+  team,
+  channel,
+  ts,
+  event_ts: ts,
+  text: `<@U0BOT> ${text}`,
+});
+
+describe('Slack, end to end over HTTP', () => {
+  it('logs a reading from a slash command and confirms it to the channel, in the sender zone', async () => {
+    await say('T0READ', addHypo);
+    const reply = await say('T0READ', 'T4 60in');
+    expect(reply.body.response_type).toBe('in_channel');
+    expect(String(reply.body.text)).toMatch(/^T4: 60 in = \d+ gal/);
+    expect(readingsOf('slack:T0READ')).toHaveLength(1);
+    expect(h.api.callsOf('users.info').some((c) => c.params.user === 'U0ANA')).toBe(true);
+  });
+
+  it('answers a runway question asked by mention with blocks and an uploaded chart', async () => {
+    await say('T0ASK', addHypo);
+    await say('T0ASK', 'T4 62in at yesterday 8am');
+    await say('T0ASK', 'T4 55in');
+    await h.event(mention('T0ASK', 'C0ASK', '1764662400.000100', 'T4?'), {
+      team: 'T0ASK',
+      eventId: 'EvAsk1',
+    });
+    const post = await h.api.waitFor(() =>
+      h.api.callsOf('chat.postMessage').find((c) => c.params.channel === 'C0ASK'),
+    );
+    expect(String(post.params.text)).toContain('runway');
+    const blocks = post.params.blocks as { type: string }[];
+    expect(blocks[0]?.type).toBe('header');
+    expect(blocks.some((b) => b.type === 'section')).toBe(true);
+    // files.uploadV2 is three calls: get an upload URL, send the bytes there, complete into the channel.
+    const complete = await h.api.waitFor(() =>
+      h.api.callsOf('files.completeUploadExternal').find((c) => c.params.channel_id === 'C0ASK'),
+    );
+    const [file] = complete.params.files as { id: string }[];
+    const png = h.api.uploads.get(file?.id ?? '');
+    expect(png?.subarray(0, 8)).toEqual(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a])); // PNG signature
+  });
+
+  it('keeps a mistake between the bot and the sender (ephemeral)', async () => {
+    await h.event(mention('T0ASK', 'C0ASK', '1764662400.000200', 'T44 3in'), {
+      team: 'T0ASK',
+      eventId: 'EvAsk2',
+    });
+    const eph = await h.api.waitFor(() =>
+      h.api.callsOf('chat.postEphemeral').find((c) => c.params.channel === 'C0ASK'),
+    );
+    expect(eph.params.user).toBe('U0ANA');
+    expect(String(eph.params.text)).toContain('Did you mean T4?');
+  });
+
+  it('sets a tank up through the modal, showing a mistake on the form first', async () => {
+    await say('T0SETUP', 'T9?'); // the team exists; its first user is the admin
+    await h.command({ team: 'T0SETUP', channel: 'C0RIDGE', user: 'U0ANA', text: 'setup', id: 'setup-open' });
+    const open = await h.api.waitFor(() =>
+      h.api.callsOf('views.open').find((c) => c.params.trigger_id === 'trigger-setup-open'),
+    );
+    const view = open.params.view as { callback_id: string; private_metadata: string };
+    expect(view.callback_id).toBe('tankrunway:setup');
+    const submit = (tank: string, diameter: string) =>
+      h.interaction({
+        type: 'view_submission',
+        team: { id: 'T0SETUP', domain: 'kestrel' },
+        user: { id: 'U0ANA', name: 'ana', team_id: 'T0SETUP' },
+        api_app_id: 'A0TANK',
+        trigger_id: 'trig-view',
+        view: {
+          id: 'V0SETUP',
+          team_id: 'T0SETUP',
+          type: 'modal',
+          callback_id: view.callback_id,
+          private_metadata: view.private_metadata,
+          hash: 'h1',
+          state: {
+            values: {
+              tank: { value: { type: 'plain_text_input', value: tank } },
+              shape: { value: { type: 'static_select', selected_option: { value: 'vertical-cylinder' } } },
+              diameter: { value: { type: 'plain_text_input', value: diameter } },
+              length: { value: { type: 'plain_text_input', value: '8ft' } },
+              unit: { value: { type: 'static_select', selected_option: { value: 'gal' } } },
+              product: { value: { type: 'plain_text_input', value: 'diesel' } },
+              site: { value: { type: 'plain_text_input', value: 'Ridge Pump Station' } },
+            },
+          },
+        },
+      });
+    const wrong = await submit('GEN1', '5 furlongs');
+    expect(wrong.status).toBe(200);
+    expect(JSON.parse(wrong.text)).toMatchObject({ response_action: 'errors' });
+    expect(store.tanks.list('slack:T0SETUP')).toHaveLength(0);
+
+    const right = await submit('GEN1', '5ft');
+    expect(right.status).toBe(200);
+    expect(right.text).toBe('');
+    const confirmed = await h.api.waitFor(() =>
+      h.api.callsOf('chat.postMessage').find((c) => c.params.channel === 'C0RIDGE'),
+    );
+    expect(String(confirmed.params.text)).toContain('GEN1');
+    // Diesel: the reply carries the usual caution, deferring to local codes.
+    expect(JSON.stringify(confirmed.params.blocks)).toContain('context');
+    expect(store.tanks.list('slack:T0SETUP').map((t) => t.code)).toEqual(['GEN1']);
+  });
+
+  it('stores a redelivered event once (same event_id, and the same message under another event)', async () => {
+    await say('T0RETRY', addHypo);
+    const event = mention('T0RETRY', 'C0RETRY', '1764662400.000300', 'T4 58in');
+    expect((await h.event(event, { team: 'T0RETRY', eventId: 'EvR1' })).status).toBe(200);
+    expect((await h.event(event, { team: 'T0RETRY', eventId: 'EvR1' }, { retryNum: 1 })).status).toBe(200);
+    expect((await h.event(event, { team: 'T0RETRY', eventId: 'EvR2' }, { retryNum: 2 })).status).toBe(200);
+    await h.api.waitFor(
+      () => h.api.callsOf('chat.postMessage').filter((c) => c.params.channel === 'C0RETRY').length >= 3,
+    );
+    expect(readingsOf('slack:T0RETRY')).toHaveLength(1);
+  });
+
+  it('refuses forged, stale and future-dated signatures with 401 and stores nothing', async () => {
+    const now = Math.floor(Date.now() / 1000);
+    const send = (sign: { secret?: string; timestamp?: number; signature?: string }) =>
+      h.command(
+        {
+          team: 'T0SIGN',
+          channel: 'C0SIGN',
+          user: 'U0EVE',
+          text: addHypo,
+          id: `sign-${JSON.stringify(sign).length}`,
+        },
+        sign,
+      );
+    const forged = await send({ secret: 'not-the-signing-secret' });
+    const stale = await send({ timestamp: now - 10 * 60 });
+    const future = await send({ timestamp: now + 10 * 60 });
+    const garbage = await send({ signature: 'v0=00' });
+    expect([forged.status, stale.status, future.status, garbage.status]).toEqual([401, 401, 401, 401]);
+    // The future one was signed correctly: only our own check refuses it.
+    expect(slackSignature(signingSecret, now + 600, 'x')).toMatch(/^v0=[0-9a-f]{64}$/);
+    await new Promise((r) => setTimeout(r, 100));
+    expect(store.teams.list().map((t) => t.id)).not.toContain('slack:T0SIGN');
+    expect(h.api.responses.filter((r) => r.id.startsWith('sign-'))).toHaveLength(0);
+  });
+
+  it('waits out a 429 for one team without holding up another', async () => {
+    for (const team of ['T0RATEA', 'T0RATEB']) await say(team, addHypo);
+    h.api.rateLimit('chat.postMessage', 1, 1, (p) => p.channel === 'C0RATEA');
+    await h.event(mention('T0RATEA', 'C0RATEA', '1764662400.000400', 'T4 50in'), {
+      team: 'T0RATEA',
+      eventId: 'EvRA',
+    });
+    const limited = await h.api.waitFor(() =>
+      h.api.callsOf('chat.postMessage').find((c) => c.params.channel === 'C0RATEA'),
+    );
+    await h.event(mention('T0RATEB', 'C0RATEB', '1764662400.000500', 'T4 50in'), {
+      team: 'T0RATEB',
+      eventId: 'EvRB',
+    });
+    const b = await h.api.waitFor(() =>
+      h.api.callsOf('chat.postMessage').find((c) => c.params.channel === 'C0RATEB'),
+    );
+    const aCalls = await h.api.waitFor(() => {
+      const calls = h.api.callsOf('chat.postMessage').filter((c) => c.params.channel === 'C0RATEA');
+      return calls.length >= 2 && calls;
+    });
+    const retried = aCalls[1];
+    expect(b.at).toBeLessThan(retried?.at ?? 0); // team B was not paused behind team A
+    expect((retried?.at ?? 0) - limited.at).toBeGreaterThanOrEqual(950); // A waited for Retry-After: 1
+    expect(readingsOf('slack:T0RATEA')).toHaveLength(1);
+  });
+
+  it('posts the morning digest to the team channel through the scheduler', async () => {
+    await say('T0DIGEST', addHypo, 'C0OPS');
+    await say('T0DIGEST', 'set time zone America/Chicago', 'C0OPS');
+    await say('T0DIGEST', 'set digest 07:00 here', 'C0OPS');
+    await say('T0DIGEST', 'T4 60in', 'C0OPS');
+    const sevenAm = DateTime.now()
+      .setZone('America/Chicago')
+      .plus({ days: 1 })
+      .set({ hour: 7, minute: 0, second: 0, millisecond: 0 });
+    const scheduler = createScheduler({
+      store,
+      deliver: (team, channel, replies) => h.adapter.deliver(team, channel, replies),
+      clock: () => sevenAm.toMillis(),
+      graceMinutes: 60,
+      composeDigest: digestFromStore,
+    });
+    await scheduler.tick(sevenAm.toMillis() + 60_000);
+    scheduler.release();
+    const posted = await h.api.waitFor(() =>
+      h.api.callsOf('chat.postMessage').find((c) => c.params.channel === 'C0OPS'),
+    );
+    expect(String(posted.params.text)).toContain('T4');
+  });
+
+  it('draws the home tab with the team tanks', async () => {
+    await h.event(
+      { type: 'app_home_opened', user: 'U0ANA', channel: 'D0HOME', tab: 'home', event_ts: '1764662400.1' },
+      { team: 'T0READ', eventId: 'EvHome' },
+    );
+    const publish = await h.api.waitFor(() =>
+      h.api.callsOf('views.publish').find((c) => c.params.user_id === 'U0ANA'),
+    );
+    const json = JSON.stringify(publish.params.view);
+    expect(json).toContain('Tanks by runway');
+    expect(json).toContain('T4');
+  });
+
+  it('needed exactly the scopes the manifest asks for', () => {
+    const methods = new Set(h.api.calls.map((c) => c.method));
+    for (const m of methods) expect(Object.keys(scopeFor)).toContain(m);
+    const used = [...methods].map((m) => scopeFor[m as keyof typeof scopeFor]);
+    used.push(scopeFor['slash command'], scopeFor['app_mention event']);
+    expect([...new Set(used.filter((s) => s !== undefined))].sort()).toEqual(botScopes);
+  });
+});
