@@ -1,4 +1,5 @@
 import type { BenchSection } from '../harness.js';
+import { slackLoadSection } from './slack-load.js';
 
 /** Every section of `npm run bench`, in print order; each lives in its own file beside this one. */
-export const sections: BenchSection[] = [];
+export const sections: BenchSection[] = [slackLoadSection];
