@@ -14,8 +14,10 @@ import { randomUUID } from 'node:crypto';
 import type { Reply } from '../replies/reply.js';
 import type { Store } from '../store/open-store.js';
 import type { Team } from '../store/types.js';
+import { digestFromStore } from './digest.js';
 import { createDigestCalendar, type DigestOccurrence } from './digest-calendar.js';
 import { createLease } from './lease.js';
+import { noticesFromStore } from './notices.js';
 import { type PostKey, type PostKind, postsRepo } from './posts.js';
 
 export interface DeliveryMeta {
@@ -55,8 +57,10 @@ export interface SchedulerOptions {
   clock: () => number;
   /** A post due longer ago than this is not sent any more (logged instead). */
   graceMinutes: number;
-  composeDigest: ComposeDigest;
-  claimNotices?: ClaimNotices;
+  /** Default: `digestFromStore` (digest.ts). */
+  composeDigest?: ComposeDigest;
+  /** Default: `noticesFromStore()` (notices.ts); pass `false` for digests only. */
+  claimNotices?: ClaimNotices | false;
   /** How long the lease lasts without renewal; ticks must come more often than this. Default 2 minutes. */
   leaseTtlMs?: number;
   /** This process's name in the lease; default a random id. */
@@ -79,7 +83,9 @@ export interface Scheduler {
 const DAY = 86_400_000;
 
 export function createScheduler(options: SchedulerOptions): Scheduler {
-  const { store, deliver, clock, composeDigest } = options;
+  const { store, deliver, clock } = options;
+  const composeDigest = options.composeDigest ?? digestFromStore;
+  const claimNotices = options.claimNotices === undefined ? noticesFromStore() : options.claimNotices;
   const graceMs = Math.max(0, options.graceMinutes) * 60_000;
   const leaseTtlMs = options.leaseTtlMs ?? 120_000;
   const holder = options.holder ?? randomUUID();
@@ -154,7 +160,7 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
       for (const team of store.teams.list()) {
         for (const occurrence of calendar.due(team, now, graceMs + DAY)) claimDigest(team, occurrence, now);
       }
-      options.claimNotices?.(store, now, (key, replies, dueAt) => claim(key, replies, dueAt, now));
+      if (claimNotices) claimNotices(store, now, (key, replies, dueAt) => claim(key, replies, dueAt, now));
     } catch (error) {
       if (!(error instanceof LeaseLostError)) throw error;
       log({ type: 'not-leader', holder });
