@@ -116,7 +116,7 @@ function simulateTruth(spec: ScenarioSpec, rnd: Random) {
     if (active) {
       const a: { end: number; step: number } = active;
       v += a.step;
-      if (t + GRID_MS >= a.end) active = null;
+      if (t >= a.end) active = null;
     } else if (!spec.filling) {
       if (orderedAt === null && v < reorder) orderedAt = t + rnd.uniform(0.3, 2) * DAY_MS;
       const due = (orderedAt !== null && t >= orderedAt) || extraD.has(i);

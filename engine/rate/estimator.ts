@@ -7,6 +7,7 @@
 import { eventTypeFor, findNearbyEvent, loggedShift, loggedTypeFor, pushEvent } from './events.js';
 import { type Prediction, predict, reseedVolume, update } from './kalman.js';
 import { pointFrom, rejectedPoint } from './point.js';
+import { bestSplit, clearRecent, fitRecent, pushRecent, trimRecent } from './recent.js';
 import { deviationReason, unitSlipReason } from './suspect.js';
 import {
   CHANGE_SETTLE_DAYS,
@@ -21,6 +22,8 @@ import {
   MAX_PENDING,
   RATE_MEMORY_DAYS,
   RATE_MEMORY_INTERVALS,
+  RECENT_KEEP_DAYS,
+  RELEARN_WIDEN,
 } from './tuning.js';
 import type {
   RateChange,
@@ -55,6 +58,8 @@ export function initialState(options: RateOptions = {}): RateEstimatorState {
     cusumNegStart: 0,
     basisStart: 0,
     basisCount: 0,
+    recentTimes: [],
+    recentVolumes: [],
     pending: [],
     undo: null,
     loggedPending: [],
@@ -140,7 +145,7 @@ export class Estimator implements RateEstimator {
       return this.pendingPoint(time, pr, deviationReason(volume, pr.v));
     }
     e = this.applySmallLogged(time, e, pr);
-    this.filterUpdate(time, e, pr, R);
+    this.filterUpdate(time, volume, e, pr, R);
     return this.point(time, undefined);
   }
 
@@ -207,7 +212,7 @@ export class Estimator implements RateEstimator {
     return Math.max(EVENT_Z * Math.sqrt(pr.p00 + R), EVENT_MIN_FRACTION * (s.capacity ?? s.scale));
   }
 
-  private filterUpdate(time: number, e: number, pr: Prediction, R: number): void {
+  private filterUpdate(time: number, volume: number, e: number, pr: Prediction, R: number): void {
     const s = this.s;
     const S = pr.p00 + R;
     const sd = Math.sqrt(S);
@@ -221,7 +226,9 @@ export class Estimator implements RateEstimator {
     s.lastTime = time;
     // Dense readings are not independent (thermal swing, working hours): each counts for at most its share
     // of the decorrelation time, so a sensor every 5 minutes does not raise an alarm 72 times sooner.
+    pushRecent(s, time, volume);
     this.detectChange(time, z, before, Math.min(1, dt / CUSUM_DECORRELATION_DAYS));
+    trimRecent(s, Math.min(s.cusumPosStart, s.cusumNegStart, time - RECENT_KEEP_DAYS * DAY_MS));
   }
 
   /** Two-sided CUSUM on standardised innovations; an alarm widens the rate's variance so it re-learns. */
@@ -233,15 +240,8 @@ export class Estimator implements RateEstimator {
     s.cusumNeg = Math.max(0, s.cusumNeg + weight * (-z - CUSUM_K));
     if (s.cusumPos > CUSUM_H || s.cusumNeg > CUSUM_H) {
       const at = s.cusumPos > CUSUM_H ? s.cusumPosStart : s.cusumNegStart;
-      const rateFloor = 1e-3 * Math.max(s.scale, 1);
-      // Forget the old rate and let the level follow the data again: the lagging level would otherwise be
-      // read as extra rate and overshoot.
-      s.p11 += (Math.abs(before) + rateFloor) ** 2;
-      s.p00 += 4 * this.noiseVar();
-      s.p01 = 0;
+      this.relearn(at, time);
       if (!s.changePending) s.changePending = { at, from: before, alarm: time, count: s.count };
-      s.basisStart = at;
-      s.basisCount = s.count;
       this.resetCusum();
     }
     const pendingChange = s.changePending;
@@ -256,6 +256,33 @@ export class Estimator implements RateEstimator {
       }
       s.changePending = null;
     }
+  }
+
+  /**
+   * After an alarm: refit level and rate by least squares on the readings since the change began (widened,
+   * since those residuals are not independent); with too few, forget the old rate instead.
+   */
+  private relearn(at: number, time: number): number {
+    const s = this.s;
+    const R = this.noiseVar();
+    const split = bestSplit(s, time, 4);
+    const from = split ?? at;
+    const fit = fitRecent(s, from, time, R);
+    if (fit) {
+      s.v = fit.v;
+      s.r = fit.r;
+      s.p00 = fit.p00 * RELEARN_WIDEN;
+      s.p01 = fit.p01 * RELEARN_WIDEN;
+      s.p11 = fit.p11 * RELEARN_WIDEN;
+      s.basisCount = s.count - fit.count + 1;
+    } else {
+      s.p11 += (Math.abs(s.r) + 1e-3 * Math.max(s.scale, 1)) ** 2;
+      s.p00 += 4 * R;
+      s.p01 = 0;
+      s.basisCount = s.count;
+    }
+    s.basisStart = from;
+    return from;
   }
 
   private resetCusum(): void {
@@ -305,6 +332,7 @@ export class Estimator implements RateEstimator {
     reseedVolume(s, pr, level, R);
     s.lastTime = time;
     this.resetCusum();
+    clearRecent(s);
   }
 
   private dropPendingAsSuspect(): void {

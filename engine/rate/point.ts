@@ -1,5 +1,5 @@
 // Building the RatePoint the estimator reports after each reading.
-import { DAY_MS, RATE_SIGMA_SCALE, Z80 } from './tuning.js';
+import { DAY_MS, RATE_SIGMA_CORRELATION_DAYS, RATE_SIGMA_PER_OCTAVE, Z80 } from './tuning.js';
 import type { RateEstimatorState, RatePoint } from './types.js';
 
 export function pointFrom(
@@ -9,7 +9,8 @@ export function pointFrom(
   rateVar: number,
   suspect: string | undefined,
 ): RatePoint {
-  const sigma = Math.sqrt(rateVar) * RATE_SIGMA_SCALE;
+  const perWindow = s.dtMean > 0 ? RATE_SIGMA_CORRELATION_DAYS / s.dtMean : 1;
+  const sigma = Math.sqrt(rateVar) * (1 + RATE_SIGMA_PER_OCTAVE * Math.log2(Math.max(1, perWindow)));
   const point: RatePoint = {
     time,
     volume,

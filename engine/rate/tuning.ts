@@ -12,16 +12,25 @@ export const RATE_MEMORY_DAYS = 1.5;
 export const RATE_MEMORY_INTERVALS = 3;
 /** Two-sided CUSUM on standardised innovations (Page, 1954): allowance and alarm level. */
 export const CUSUM_K = 0.5;
-export const CUSUM_H = 5;
+export const CUSUM_H = 4;
 /** Residuals closer together than this are not independent evidence of a change (days). */
-export const CUSUM_DECORRELATION_DAYS = 0.25;
+export const CUSUM_DECORRELATION_DAYS = 0.125;
 /** Below this mean sampling interval a series is dense (a sensor), above it manual. */
 export const DENSE_INTERVAL_DAYS = 2 / 24;
 /** Deviant readings waited on before a level shift is accepted regardless. */
 export const MAX_PENDING = 8;
 /** z of a two-sided 80% normal interval (1.2816, standard normal table). */
 export const Z80 = 1.2815515655446004;
-/** Scale on the filter's rate standard error so the ~80% range covers about 80% (bench-calibrated). */
-export const RATE_SIGMA_SCALE = 1;
+/**
+ * The filter treats readings as independent; dense ones are not (thermal swing, working hours), so its rate
+ * standard error is widened by 1 + RATE_SIGMA_PER_OCTAVE * log2(readings per RATE_SIGMA_CORRELATION_DAYS),
+ * calibrated on the accuracy bench so the ~80% range covers about 80%.
+ */
+export const RATE_SIGMA_PER_OCTAVE = 0.3;
+export const RATE_SIGMA_CORRELATION_DAYS = 0.25;
 /** A rate change must settle for this long before it is reported. */
 export const CHANGE_SETTLE_DAYS = 1;
+/** Widening of a least-squares refit's covariance after a change (its residuals are not independent). */
+export const RELEARN_WIDEN = 1;
+/** Trusted readings kept for a refit after a change alarm (days back, at least). */
+export const RECENT_KEEP_DAYS = 3;

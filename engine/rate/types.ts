@@ -87,6 +87,9 @@ export interface RateEstimatorState {
   cusumNegStart: number;
   basisStart: number;
   basisCount: number;
+  /** Trusted readings since the change detector last had no evidence (for a refit on an alarm). */
+  recentTimes: number[];
+  recentVolumes: number[];
   /** Deviant readings since the last trusted one, waiting for confirmation. */
   pending: TimedVolume[];
   /** Filter state before an event accepted at once, kept one reading in case it was a typo. */

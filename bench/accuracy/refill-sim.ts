@@ -1,0 +1,204 @@
+// Closed-loop refill simulation over the accuracy scenarios: the tank's own use (the scenario's true flow,
+// its deliveries taken out) drives a simulated tank whose deliveries (pick-ups on a filling tank) come from a
+// policy, checked once a day; the policy sees readings carrying the scenario's own reading errors (noise,
+// spikes, rounding, typos) and the rate estimator's view of them. Deliveries arrive on the day the supplier
+// calendar gives, at 10:00, with the quantity ordered.
+import { createRateEstimator, type RatePoint } from '../../engine/rate/index.js';
+import { arrivalDay, startOfDay } from '../../engine/refill/deliveryCalendar.js';
+import { orderQuantity } from '../../engine/refill/orderQuantity.js';
+import { planRefill } from '../../engine/refill/planRefill.js';
+import type { RefillSettings } from '../../engine/refill/settings.js';
+import { DAY_MS, type Scenario } from './scenarios.js';
+
+const GRID_MS = 5 * 60_000;
+const HOUR_MS = 3_600_000;
+const WARM_UP_DAYS = 7;
+
+/** The supplier terms and limits every simulated tank gets (invented, typical of bulk chemical supply). */
+export function simSettings(capacity: number, filling: boolean): RefillSettings {
+  return {
+    threshold: { percent: filling ? 85 : 10 },
+    leadTimeDays: 2,
+    businessDays: true,
+    orderCutoffHour: 12,
+    deliveryWeekdays: [1, 2, 3, 4, 5],
+    minimumOrder: 0.2 * capacity,
+    orderIncrement: 0.01 * capacity,
+    safeFillPercent: 90,
+    serviceLevel: 0.95,
+    timeZone: 'UTC',
+  };
+}
+
+export interface PolicyView {
+  now: number;
+  point: RatePoint;
+  capacity: number;
+  filling: boolean;
+  settings: RefillSettings;
+}
+
+/** An order (or pick-up booking) to place before the next daily check, or none. */
+export interface PolicyOrder {
+  orderAt: number;
+  quantity: number;
+}
+
+export interface Policy {
+  name: string;
+  decide(view: PolicyView): PolicyOrder | null;
+}
+
+/** The planner: acts on the day its order-by falls (or at once when late), with its quantity. */
+export const plannerPolicy: Policy = {
+  name: 'planner (95% service level)',
+  decide({ now, point, capacity, filling, settings }) {
+    const plan = planRefill({
+      now,
+      volume: point.volume,
+      lastReadingAt: point.time,
+      rate: point.rate,
+      rateSigma: point.rateSigma,
+      capacity,
+      filling,
+      settings,
+    });
+    if (!plan.ok || plan.value.orderBy === null || plan.value.orderBy >= now + DAY_MS) return null;
+    const quantity = plan.value.quantity ?? 0;
+    return quantity > 0 ? { orderAt: Math.max(now, plan.value.orderBy), quantity } : null;
+  },
+};
+
+/** The fixed rule: order when the tank is below 30% (book a pick-up above 70%), filling to the safe level
+ * as it stands now (the pick-up takes what is there). */
+export const fixedPolicy: Policy = {
+  name: 'fixed: order below 30%',
+  decide({ now, point, capacity, filling, settings }) {
+    const level = point.volume / capacity;
+    if (filling ? level <= 0.7 : level >= 0.3) return null;
+    const room = filling ? point.volume : (capacity * settings.safeFillPercent) / 100 - point.volume;
+    const { quantity } = orderQuantity(room, settings.minimumOrder, settings.orderIncrement);
+    return quantity > 0 ? { orderAt: now, quantity } : null;
+  },
+};
+
+export interface SimOutcome {
+  scenario: string;
+  family: string;
+  filling: boolean;
+  days: number;
+  deliveries: number;
+  /** Delivery cycles (from one arrival, or the start, to the next) in which the threshold was crossed. */
+  breaches: number;
+  cycles: number;
+  /** Cycles in which the tank ran dry (or, filling, reached its capacity). */
+  dryOuts: number;
+  /** True volume just before each arrival, as a fraction of capacity. */
+  levelsAtArrival: number[];
+  /** Arrivals that took the tank above its safe fill level. */
+  overfills: number;
+}
+
+/** The scenario's own flow on its 5-minute grid, deliveries and pick-ups taken out (withdrawals stay: use). */
+function naturalFlow(s: Scenario, start: number, steps: number): Float64Array {
+  const flow = new Float64Array(steps);
+  let previous = s.truth.volumeAt(start);
+  for (let i = 1; i < steps; i++) {
+    const v = s.truth.volumeAt(start + i * GRID_MS);
+    flow[i] = v - previous;
+    previous = v;
+  }
+  for (const e of s.truth.events) {
+    if (e.type === 'withdrawal') continue;
+    const first = Math.round((e.start - start) / GRID_MS) + 1;
+    const count = Math.max(1, Math.round((e.end - e.start) / GRID_MS));
+    const signed = e.type === 'delivery' ? e.volume : -e.volume;
+    for (let i = first; i < first + count && i < steps; i++) if (i > 0) flow[i]! -= signed / count;
+  }
+  return flow;
+}
+
+export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
+  const start = s.readings[0]?.time ?? 0;
+  const end = s.readings[s.readings.length - 1]?.time ?? start;
+  const steps = Math.floor((end - start) / GRID_MS) + 1;
+  const flow = naturalFlow(s, start, steps);
+  const cap = s.capacity;
+  const settings = simSettings(cap, s.filling);
+  const threshold = (cap * ('percent' in settings.threshold ? settings.threshold.percent : 0)) / 100;
+  const safeFill = (cap * settings.safeFillPercent) / 100;
+  const estimator = createRateEstimator({ capacity: cap, filling: s.filling });
+  const logDeliveries = s.family === 'manual';
+  const out: SimOutcome = {
+    scenario: s.name,
+    family: s.family,
+    filling: s.filling,
+    days: (end - start) / DAY_MS,
+    deliveries: 0,
+    breaches: 0,
+    cycles: 1,
+    dryOuts: 0,
+    levelsAtArrival: [],
+    overfills: 0,
+  };
+  let volume = s.truth.volumeAt(start);
+  let pending: { arriveAt: number; quantity: number } | null = null;
+  let breached = false;
+  let dry = false;
+  let next = 0; // next reading to feed
+  let point: RatePoint | null = null;
+  // The team knows a delivery came even before a reading shows it: the view adds it to the last estimate.
+  let arrived: { at: number; quantity: number } | null = null;
+  let nextCheck = startOfDay(Math.floor(start / DAY_MS) + WARM_UP_DAYS, 'UTC') + 8 * HOUR_MS;
+  for (let i = 0; i < steps; i++) {
+    const t = start + i * GRID_MS;
+    volume = Math.min(cap, Math.max(0, volume + flow[i]!));
+    if (pending && t >= pending.arriveAt) {
+      out.levelsAtArrival.push(volume / cap);
+      out.deliveries++;
+      volume = s.filling ? volume - Math.min(volume, pending.quantity) : volume + pending.quantity;
+      if (!s.filling && volume > safeFill * 1.0001) out.overfills++;
+      volume = Math.min(cap, volume);
+      if (logDeliveries) estimator.addDelivery(t + HOUR_MS, pending.quantity);
+      arrived = { at: t, quantity: s.filling ? -pending.quantity : pending.quantity };
+      pending = null;
+      out.cycles++;
+      breached = false;
+      dry = false;
+    }
+    if (!breached && (s.filling ? volume > threshold : volume < threshold)) {
+      breached = true;
+      out.breaches++;
+    }
+    if (!dry && (s.filling ? volume >= cap : volume <= 0)) {
+      dry = true;
+      out.dryOuts++;
+    }
+    // Readings up to now, carrying the scenario's own reading error onto this tank.
+    while (next < s.readings.length && s.readings[next]!.time <= t) {
+      const r = s.readings[next++]!;
+      const error = r.volume - s.truth.volumeAt(r.time);
+      point = estimator.addReading(r.time, Math.min(cap, Math.max(0, volume + error)));
+      if (arrived && r.time > arrived.at + HOUR_MS) arrived = null;
+    }
+    if (t >= nextCheck) {
+      nextCheck += DAY_MS;
+      if (!pending && point) {
+        const view = arrived && arrived.at > point.time ? afterDelivery(point, arrived, cap) : point;
+        const order = policy.decide({ now: t, point: view, capacity: cap, filling: s.filling, settings });
+        if (order) {
+          const day = arrivalDay(order.orderAt, settings);
+          const arriveAt = Math.max(startOfDay(day, 'UTC') + 10 * HOUR_MS, order.orderAt + HOUR_MS);
+          pending = { arriveAt, quantity: order.quantity };
+        }
+      }
+    }
+  }
+  return out;
+}
+
+/** The last estimate carried to a delivery's arrival, plus what it brought (minus what a pick-up took). */
+function afterDelivery(point: RatePoint, arrived: { at: number; quantity: number }, cap: number): RatePoint {
+  const projected = point.volume - (point.rate * (arrived.at - point.time)) / DAY_MS;
+  return { ...point, time: arrived.at, volume: Math.min(cap, Math.max(0, projected + arrived.quantity)) };
+}
