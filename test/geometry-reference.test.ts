@@ -3,9 +3,20 @@
 // V_partial_sphere and V_vertical_*_concave; vectors with a `reference` field are literal values from fluids'
 // own test suite and from the worked examples of D. Jones, "Calculating Tank Volume" and "Compute Fluid
 // Volumes in Vertical Tanks" (2003). Copied with its source note into test/fixtures/geometry/.
-import { describe, expect, it } from 'vitest';
+import { mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildTank, type Tank } from '../engine/geometry/index.js';
-import { forwardVectors, inverseVectors, specFor, withinReference } from './fixtures/geometry/vectors.js';
+import { type CliRun, runBin, runInProcess } from './fixtures/geometry/run-cli.js';
+import {
+  type ForwardVector,
+  forwardVectors,
+  type InverseVector,
+  inverseVectors,
+  specFor,
+  withinReference,
+} from './fixtures/geometry/vectors.js';
 
 const tankFor = (geometry: Parameters<typeof specFor>[0]): Tank => {
   const built = buildTank(specFor(geometry));
@@ -56,4 +67,122 @@ describe('engine against the fluids 1.0.22 reference volumes', () => {
     }
     expect(misses).toEqual([]);
   });
+});
+
+// The CLI side: one tank file per distinct geometry, all its levels (or volumes) in one call.
+interface TankGroup {
+  key: string;
+  family: string;
+  geometry: ForwardVector['geometry'];
+  forward: ForwardVector[];
+  inverse: InverseVector[];
+}
+
+function groupByGeometry(): TankGroup[] {
+  const groups = new Map<string, TankGroup>();
+  const groupOf = (v: ForwardVector | InverseVector) => {
+    const key = JSON.stringify(specFor(v.geometry));
+    let group = groups.get(key);
+    if (!group) {
+      const g = v.geometry;
+      const family = g.shape === 'tank' ? `${g.orientation} ${g.sideA ?? 'flat'}` : g.shape;
+      group = { key, family, geometry: g, forward: [], inverse: [] };
+      groups.set(key, group);
+    }
+    return group;
+  };
+  for (const v of forwardVectors) groupOf(v).forward.push(v);
+  for (const v of inverseVectors) groupOf(v).inverse.push(v);
+  return [...groups.values()];
+}
+
+let dir: string;
+const groups = groupByGeometry();
+const tankFiles = new Map<string, string>();
+beforeAll(async () => {
+  dir = await mkdtemp(join(tmpdir(), 'tankrunway-reference-'));
+  await Promise.all(
+    groups.map(async (group, i) => {
+      const path = join(dir, `tank-${i}.json`);
+      await writeFile(path, group.key);
+      tankFiles.set(group.key, path);
+    }),
+  );
+});
+afterAll(async () => {
+  await rm(dir, { recursive: true, force: true });
+});
+
+function parsedArray(run: CliRun, what: string): number[] {
+  if (run.code !== 0) throw new Error(`${what}: exit ${run.code}: ${run.stderr}`);
+  return JSON.parse(run.stdout) as number[];
+}
+
+async function checkGroup(
+  group: TankGroup,
+  run: (args: string[]) => Promise<CliRun>,
+  withInverse = true,
+): Promise<string[]> {
+  const misses: string[] = [];
+  const file = tankFiles.get(group.key)!;
+  if (group.forward.length > 0) {
+    const levels = group.forward.map((v) => String(v.h)).join(',');
+    const volumes = parsedArray(
+      await run(['volume', '--tank', file, '--levels', levels, '--json']),
+      group.family,
+    );
+    group.forward.forEach((v, i) => {
+      if (!withinReference(volumes[i]!, v.V)) misses.push(`${v.id}: CLI ${volumes[i]} vs ${v.V}`);
+    });
+  }
+  if (withInverse && group.inverse.length > 0) {
+    const tank = tankFor(group.geometry);
+    const volumes = group.inverse.map((v) => String(v.V)).join(',');
+    const levels = parsedArray(
+      await run(['level', '--tank', file, '--volumes', volumes, '--json']),
+      group.family,
+    );
+    group.inverse.forEach((v, i) => {
+      const residual = tank.volumeAt(levels[i]!) / 1000;
+      if (!withinReference(residual, v.V))
+        misses.push(`${v.id}: CLI level ${levels[i]} gives ${residual} vs ${v.V}`);
+    });
+  }
+  return misses;
+}
+
+describe('CLI against the fluids 1.0.22 reference volumes', () => {
+  it(`runs all 542 + 73 vectors through tankrunway volume / level (${groups.length} tanks, in process)`, async () => {
+    const misses: string[] = [];
+    for (const group of groups) misses.push(...(await checkGroup(group, runInProcess)));
+    expect(misses).toEqual([]);
+    expect(groups.reduce((n, g) => n + g.forward.length, 0)).toBe(542);
+    expect(groups.reduce((n, g) => n + g.inverse.length, 0)).toBe(73);
+  });
+
+  it('runs one tank of every shape family through the real bin/tankrunway.js (child processes)', async () => {
+    // One tank per family keeps the process count small on a shared machine; the in-process run covers the rest.
+    const byFamily = new Map<string, TankGroup>();
+    for (const group of groups) {
+      const best = byFamily.get(group.family);
+      if (!best || group.forward.length + group.inverse.length > best.forward.length + best.inverse.length)
+        byFamily.set(group.family, group);
+    }
+    const chosen = [...byFamily.values()];
+    expect(chosen.length).toBeGreaterThanOrEqual(12);
+    // The inverse through the real bin for the families where the root finder works hardest.
+    const inverseFamilies = new Set([
+      'horizontal torispherical',
+      'vertical torispherical',
+      'vertical_concave_bottom',
+    ]);
+    const misses: string[] = [];
+    for (let i = 0; i < chosen.length; i += 2) {
+      const pair = await Promise.all(
+        chosen.slice(i, i + 2).map((group) => checkGroup(group, runBin, inverseFamilies.has(group.family))),
+      );
+      misses.push(...pair.flat());
+    }
+    expect(misses).toEqual([]);
+  }, 120_000);
 });
