@@ -1,5 +1,6 @@
 import type { BenchSection } from '../harness.js';
+import { languageSection } from './language.js';
 import { slackLoadSection } from './slack-load.js';
 
 /** Every section of `npm run bench`, in print order; each lives in its own file beside this one. */
-export const sections: BenchSection[] = [slackLoadSection];
+export const sections: BenchSection[] = [languageSection, slackLoadSection];

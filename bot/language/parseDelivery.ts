@@ -6,7 +6,8 @@ import { matchTankPrefix, unknownTankMessage } from './tankName.js';
 
 const TICKET =
   /\s(?:ticket|tkt|invoice|bol)\s*(?:no\.?|number|#)?\s*[:#]?\s*([A-Za-z0-9][A-Za-z0-9-]{0,63})(?=\s|$)/i;
-const LEVEL_AFTER = /\s(?:level\s+after|after\s+level|level\s+now|now\s+at|reads?\s+after)\s+/i;
+const LEVEL_AFTER =
+  /\s(?:level\s+after|after\s+level|level\s+now|level|now\s+at|reads?\s+after)\s*[:=]?\s+(?=[\d.]|ullage\b)/i;
 const DELIVERED_TO =
   /^(?:delivered|delivery(?:\s+of)?|received|got|filled)\s+(.+?)\s+(?:to|into|for)\s+(.+)$/i;
 

@@ -1,8 +1,8 @@
 import { DateTime } from 'luxon';
 import { fail, ok, type Result } from '../../engine/result.js';
-import { checkTimeZone } from '../schedule/local-time.js';
 import type { CommandOf, ParseContext } from './command.js';
 import { matchTankPrefix, unknownTankMessage } from './tankName.js';
+import { checkTeamZone } from './teamZone.js';
 
 const HOW_LONG =
   /^how\s+long\s+(?:does|will|would|can|is|for)?\s*(.+?)(?:\s+(?:last|go|run|keep\s+going|good\s+for|hold\s+out))?\s*\??$/i;
@@ -32,7 +32,7 @@ export function resolveWindow(
   words: string,
   context: ParseContext,
 ): Result<{ until: number; window: string }> {
-  const zone = checkTimeZone(context.timeZone);
+  const zone = checkTeamZone(context.timeZone);
   if (!zone.ok) return fail(`The team's time zone is not usable: ${zone.error}`);
   const local = DateTime.fromMillis(context.now, { zone: context.timeZone });
   const w = words

@@ -70,6 +70,10 @@ describe('deliveries', () => {
     ['delivery of 2,000 L to North Yard 2', { tank: 'North Yard 2', volume: { value: 2000, unit: 'L' } }],
     ['delivered 150 gal to T4 ticket 8812', { tank: 'T4', ticket: '8812' }],
     [
+      'delivered 400 gal to T4 level 61in',
+      { levelAfter: { kind: 'level', length: { value: 61, unit: 'in' } } },
+    ],
+    [
       'delivered 150 gal to T4 ticket 8812 level after 61in at 2026-11-06 10:00',
       {
         ticket: '8812',

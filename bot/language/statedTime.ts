@@ -1,8 +1,9 @@
 import * as chrono from 'chrono-node';
 import { DateTime } from 'luxon';
 import { fail, ok, type Result } from '../../engine/result.js';
-import { checkTimeZone, instantOfLocal } from '../schedule/local-time.js';
+import { instantOfLocal } from '../schedule/local-time.js';
 import type { StatedTime } from './command.js';
+import { checkTeamZone } from './teamZone.js';
 
 /**
  * Where a time in words starts inside a message ("... at 7:30", "... yesterday 4pm", "... 2026-11-02 07:30").
@@ -34,7 +35,7 @@ export interface TimeContext {
  * team's zone (DST handled by bot/schedule's one rule); an explicit zone or offset wins.
  */
 export function resolveStatedTime(raw: string, context: TimeContext): Result<StatedTime> {
-  const zone = checkTimeZone(context.timeZone);
+  const zone = checkTeamZone(context.timeZone);
   if (!zone.ok)
     return fail(
       `The team's time zone is not usable: ${zone.error} Set it with \`set time zone America/Chicago\`.`,
