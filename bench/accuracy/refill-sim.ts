@@ -128,7 +128,7 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
   const threshold = (cap * ('percent' in settings.threshold ? settings.threshold.percent : 0)) / 100;
   const safeFill = (cap * settings.safeFillPercent) / 100;
   const estimator = createRateEstimator({ capacity: cap, filling: s.filling });
-  const logDeliveries = s.family === 'manual';
+  const logDeliveries = true;
   const out: SimOutcome = {
     scenario: s.name,
     family: s.family,
@@ -181,8 +181,10 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
       point = estimator.addReading(r.time, Math.min(cap, Math.max(0, volume + error)));
       if (arrived && r.time > arrived.at + HOUR_MS) arrived = null;
     }
-    if (t >= nextCheck) {
-      nextCheck += DAY_MS;
+    // Daily at 08:00, and once more when a delivery has just come (the team logs it and sees the new plan).
+    const justArrived = arrived !== null && arrived.at === t;
+    if (t >= nextCheck || justArrived) {
+      if (t >= nextCheck) nextCheck += DAY_MS;
       if (!pending && point) {
         const view = arrived && arrived.at > point.time ? afterDelivery(point, arrived, cap) : point;
         const order = policy.decide({ now: t, point: view, capacity: cap, filling: s.filling, settings });
