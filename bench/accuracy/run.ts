@@ -36,7 +36,7 @@ const ROWS: [keyof FamilySummary, string, (x: number) => string][] = [
 function familyTable(r: FamilyResult): string {
   const head = `| metric | estimator | 7-day LS slope | 7-day LS, rises removed | estimator error / LS | / LS no rises |\n|---|---|---|---|---|---|`;
   const lines = ROWS.map(([key, label, fmt]) => {
-    const [e, a, b] = METHODS.map((m) => r.byMethod[m][key]);
+    const [e, a, b] = METHODS.map((m) => r.byMethod[m][key]) as [number, number, number];
     const isError = key === 'rateError' || key === 'runwayError' || key === 'eventVolumeError';
     return `| ${label} | ${fmt(e)} | ${fmt(a)} | ${fmt(b)} | ${isError ? ratio(e, a) : ''} | ${isError ? ratio(e, b) : ''} |`;
   });
