@@ -29,6 +29,9 @@ export interface InteractionDeps {
   log: (line: string) => void;
 }
 
+/** Whether the interaction was answered with "thinking...", and for whom. */
+type Deferred = 'no' | 'public' | 'private';
+
 export const teamOf = (guildId: string) => `discord:${guildId}`;
 
 const errorReply = (headline: string): Reply => ({ kind: 'error', visibility: 'sender', headline });
@@ -55,13 +58,23 @@ export function suggest(all: readonly string[], typed: string): string[] {
 export function createInteractionHandler(deps: InteractionDeps): (interaction: Interaction) => Promise<void> {
   const deferAfterMs = deps.deferAfterMs ?? 1500;
 
-  async function send(interaction: RepliableInteraction, messages: DiscordMessage[], deferred: boolean) {
+  /**
+   * Sends the messages: the first as the interaction's response (or the edit of its deferred response), the
+   * rest as follow-ups. A sender-only first message after a public "thinking..." replaces it privately, so an
+   * error is never shown to the whole channel.
+   */
+  async function send(interaction: RepliableInteraction, messages: DiscordMessage[], deferred: Deferred) {
     for (const [i, m] of messages.entries()) {
       const payload = { embeds: m.embeds, files: m.files, components: m.components };
-      const flags = m.ephemeral ? MessageFlags.Ephemeral : undefined;
-      if (i === 0 && deferred) await interaction.editReply(payload);
-      else if (i === 0) await interaction.reply({ ...payload, ...(flags ? { flags } : {}) });
-      else await interaction.followUp({ ...payload, ...(flags ? { flags } : {}) });
+      const flagged = m.ephemeral ? { ...payload, flags: MessageFlags.Ephemeral as const } : payload;
+      if (i > 0 || deferred === 'no') {
+        await (i === 0 ? interaction.reply(flagged) : interaction.followUp(flagged));
+      } else if (m.ephemeral && deferred === 'public') {
+        await interaction.deleteReply();
+        await interaction.followUp(flagged);
+      } else {
+        await interaction.editReply(payload);
+      }
     }
   }
 
@@ -74,7 +87,7 @@ export function createInteractionHandler(deps: InteractionDeps): (interaction: I
         await toDiscordMessages([
           errorReply('Use this command in a server channel: each server is one team.'),
         ]),
-        false,
+        'no',
       );
       return;
     }
@@ -85,13 +98,13 @@ export function createInteractionHandler(deps: InteractionDeps): (interaction: I
       userName:
         interaction.member && 'displayName' in interaction.member
           ? interaction.member.displayName
-          : interaction.user.username,
+          : interaction.user.displayName,
       text,
       // The interaction's own time (from its id), so a replay resolves "at 7:30" exactly as the first did.
       receivedAt: interaction.createdTimestamp,
       dedupeKey: interaction.id,
     });
-    let deferred = false;
+    let deferred: Deferred = 'no';
     let timer: NodeJS.Timeout | undefined;
     const late = new Promise<'late'>((resolve) => {
       timer = setTimeout(() => resolve('late'), deferAfterMs);
@@ -99,15 +112,16 @@ export function createInteractionHandler(deps: InteractionDeps): (interaction: I
     const first = await Promise.race([handling, late]);
     clearTimeout(timer);
     if (first === 'late') {
+      // Most replies are for the channel; a private one then replaces "thinking..." (see send).
       await interaction.deferReply();
-      deferred = true;
+      deferred = 'public';
     }
     const replies = await handling;
     if (replies.length === 0) replies.push({ kind: 'notice', visibility: 'sender', headline: 'Done.' });
-    if (!deferred && needsChart(replies)) {
+    if (deferred === 'no' && needsChart(replies)) {
       const ephemeral = replies[0]?.visibility === 'sender';
       await interaction.deferReply(ephemeral ? { flags: MessageFlags.Ephemeral } : {});
-      deferred = true;
+      deferred = ephemeral ? 'private' : 'public';
     }
     const messages = await toDiscordMessages(replies, deps.renderChart, (e) =>
       deps.log(`chart failed: ${String(e)}`),
@@ -116,7 +130,7 @@ export function createInteractionHandler(deps: InteractionDeps): (interaction: I
   }
 
   async function refuse(interaction: RepliableInteraction, problem: string): Promise<void> {
-    await send(interaction, await toDiscordMessages([errorReply(problem)]), false);
+    await send(interaction, await toDiscordMessages([errorReply(problem)]), 'no');
   }
 
   async function autocomplete(interaction: AutocompleteInteraction): Promise<void> {

@@ -11,6 +11,12 @@ export interface GatewayStandIn {
   /** IDENTIFY payloads received (token, intents, properties). */
   identifies: unknown[];
   heartbeats: number;
+  /** RESUME payloads received after a dropped connection. */
+  resumes: unknown[];
+  /** Connections opened so far (a reconnect opens another). */
+  connections: number;
+  /** Drops every connection without a close frame, as a network failure does (close code 1006). */
+  dropConnections(): void;
   /** Sends a dispatch (op 0) with the next sequence number to every connected client. */
   dispatch(type: string, data: unknown): void;
   /** Resolves once a client has identified and received READY. */
@@ -34,12 +40,13 @@ export async function startGatewayStandIn(options: { applicationId: string }): P
   const ready = new Promise<void>((resolve) => {
     markReady = resolve;
   });
-  const state = { identifies: [] as unknown[], heartbeats: 0 };
+  const state = { identifies: [] as unknown[], heartbeats: 0, resumes: [] as unknown[], connections: 0 };
 
   const send = (socket: WebSocket, frame: object) => socket.send(JSON.stringify(frame));
 
   server.on('connection', (socket) => {
     sockets.add(socket);
+    state.connections++;
     socket.on('close', () => sockets.delete(socket));
     send(socket, { op: 10, d: { heartbeat_interval: 41_250 }, s: null, t: null });
     socket.on('message', (data) => {
@@ -77,6 +84,7 @@ export async function startGatewayStandIn(options: { applicationId: string }): P
         });
         markReady();
       } else if (frame.op === 6) {
+        state.resumes.push(frame.d);
         send(socket, { op: 0, t: 'RESUMED', s: ++seq, d: null });
       }
     });
@@ -89,6 +97,15 @@ export async function startGatewayStandIn(options: { applicationId: string }): P
     },
     get heartbeats() {
       return state.heartbeats;
+    },
+    get resumes() {
+      return state.resumes;
+    },
+    get connections() {
+      return state.connections;
+    },
+    dropConnections() {
+      for (const socket of sockets) socket.terminate();
     },
     ready,
     dispatch(type, data) {

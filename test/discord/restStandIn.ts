@@ -132,6 +132,7 @@ export async function startRestStandIn(options: {
       return { status: 204 };
     }
     const webhook = /^\/webhooks\/\d+\/[^/]+(\/messages\/@original)?$/.exec(path);
+    if (webhook?.[1] && method === 'DELETE') return { status: 204 };
     if (webhook && (method === 'PATCH' || method === 'POST'))
       return { status: 200, json: message('0', body) };
     const channel = /^\/channels\/(\d+)\/messages$/.exec(path);
