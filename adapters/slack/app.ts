@@ -18,6 +18,7 @@ import { type ChartRenderer, createOutbox } from './outbox.js';
 import { rejectFutureRequests } from './request-guard.js';
 import { createTeamClients } from './team-clients.js';
 import { slackTeamId } from './to-request.js';
+import { createTurns } from './turns.js';
 import { createUserZones } from './user-zones.js';
 
 export interface SlackAdapterOptions {
@@ -94,7 +95,9 @@ export function createSlackAdapter(options: SlackAdapterOptions): SlackAdapter {
     return info.user?.tz;
   }, clock);
   const outbox = createOutbox(clients, options.renderChart);
-  const ctx: SlackContext = { bot: options.bot, clients, zones, outbox, logger: app.logger, clock };
+  const takeTurn = createTurns();
+  const bot: Bot = { handle: (request) => takeTurn(() => options.bot.handle(request)) };
+  const ctx: SlackContext = { bot, clients, zones, outbox, logger: app.logger, clock };
 
   listenForCommand(app, ctx, options.command);
   listenForMentions(app, ctx);

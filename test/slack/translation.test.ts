@@ -19,7 +19,13 @@ const problem: Reply = {
 
 function recordingBot(answer: (r: Request) => Reply[]): Bot & { asked: Request[] } {
   const asked: Request[] = [];
-  return { asked, handle: async (r) => (asked.push(r), answer(r)) };
+  return {
+    asked,
+    handle: async (r) => {
+      asked.push(r);
+      return answer(r);
+    },
+  };
 }
 
 let h: SlackHarness;
