@@ -212,6 +212,30 @@ describe('Discord adapter against local gateway and REST stand-ins', () => {
     expect(finished.fast).toBeLessThan(800);
   });
 
+  it('answers an unknown subcommand and a message from outside a server privately, storing nothing', async () => {
+    const before = readingsOfT4().length;
+    const unknown = await interact(chatInput(where, COMMAND, 'explode', { tank: 'T4' }));
+    expect(unknown.callback.data?.flags).toBe(64);
+    const dm = chatInput(where, COMMAND, 'log', { tank: 'T4', reading: '50in' }) as Record<string, unknown>;
+    delete dm.guild_id;
+    delete dm.member;
+    delete dm.channel;
+    dm.user = { id: '740000000000000005', username: 'dana', discriminator: '0', avatar: null };
+    dm.context = 1;
+    const direct = await interact(dm as { id: string; token: string });
+    expect(direct.callback.data?.flags).toBe(64);
+    expect(firstEmbed(direct.callback).title).toMatch(/server/);
+    expect(readingsOfT4()).toHaveLength(before);
+  });
+
+  it('ignores another application command name', async () => {
+    const payload = chatInput(where, 'someone-else', 'log', { tank: 'T4', reading: '50in' });
+    world.gateway.dispatch('INTERACTION_CREATE', payload);
+    const probe = await interact(chatInput(where, COMMAND, 'help'));
+    expect(probe.callback.type).toBe(4);
+    expect(world.rest.calls.some((c) => c.path.includes(payload.token))).toBe(false);
+  });
+
   it('keeps running after a client error event', () => {
     world.adapter.client.emit('error', new Error('stand-in failure'));
     expect(world.logged.some((l) => l.includes('stand-in failure'))).toBe(true);
