@@ -21,6 +21,8 @@ export interface ConsoleChatOptions {
   chartsDir: string;
   /** The adapter's clock (the bot reads none); scripts may move it with a `/now ...` line. */
   clock: () => number;
+  /** Called with the console's time after each line (the scheduler prints digests and notices due by then). */
+  afterLine?: (now: number) => Promise<void>;
 }
 
 /** A file name that is safe on every OS: the chart title's letters and digits, then the instant. */
@@ -35,7 +37,8 @@ function chartFileName(chart: LevelChart, at: number): string {
 
 /** Renders a reply for the terminal, saving its chart (if any) and adding the path to the text. */
 async function replyText(reply: Reply, options: ConsoleChatOptions, at: number): Promise<string> {
-  let text = toPlainText(reply);
+  // One block per reply: a blank line only ever separates replies, so a script can split on it.
+  let text = toPlainText(reply).replace(/\n(\s*\n)+/g, '\n');
   if (reply.chart) {
     try {
       const png = await renderChartPng(reply.chart);
@@ -80,6 +83,7 @@ export async function runConsoleChat(options: ConsoleChatOptions): Promise<void>
       } else {
         output.write(`${clock.error}\n\n`);
       }
+      await options.afterLine?.(now());
       if (options.interactive) lines.prompt();
       continue;
     }
@@ -94,6 +98,7 @@ export async function runConsoleChat(options: ConsoleChatOptions): Promise<void>
       receivedAt: at,
     });
     for (const reply of replies) output.write(`${await replyText(reply, options, at)}\n\n`);
+    await options.afterLine?.(now());
     if (options.interactive) lines.prompt();
   }
   lines.close();

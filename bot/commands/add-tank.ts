@@ -85,7 +85,7 @@ export function createTank(context: CommandContext, req: NewTankRequest): Reply[
           : []),
         {
           label: 'Next',
-          value: `log a reading, e.g. \`${tank.code} 40${length}\`; set a threshold with \`set ${tank.code} threshold 20%\``,
+          value: `log a reading, e.g. \`${tank.code} ${formatNumber(fromMetres(g.fullHeight / 2, length), 0)}${length}\`; set a threshold with \`set ${tank.code} threshold 20%\``,
         },
       ],
       ...(caution ? { caution } : {}),

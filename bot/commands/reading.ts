@@ -1,14 +1,14 @@
 import type { Tank as TankGeometry } from '../../engine/geometry/index.js';
 import { fromLitres, isLengthUnit, LENGTH_UNITS } from '../../engine/units/index.js';
 import { type RawMeasurement, readingLitres } from '../reading-volume.js';
-import { formatChange, formatDateTime, formatVolume } from '../replies/format.js';
+import { formatChange, formatDateTime, formatPercent, formatVolume } from '../replies/format.js';
 import type { Fact, Reply } from '../replies/reply.js';
 import type { Reading, Tank } from '../store/types.js';
 import { type TankStatus, tankStatus } from '../tank-status.js';
 import { type CommandContext, defineHandler, privateError } from './handler.js';
 import { measurementWords, rawMeasurementOf } from './measurement-input.js';
 import { resolveTankGeometry, statedTimeOf } from './resolve-tank.js';
-import { runwayText, statusCaution, volumeText } from './status-reply.js';
+import { runwayText, statusCaution } from './status-reply.js';
 
 const DAY_MS = 86_400_000;
 
@@ -98,16 +98,27 @@ export function readingConfirmation(
   }
   facts.push({ label: 'Runway', value: runwayText(status, now, timeZone) });
   facts.push({ label: 'Read at', value: formatDateTime(reading.time, timeZone) });
-  const caution = statusCaution(status);
-  const volume = isLatest ? volumeText(status) : 'logged';
+  // Routine readings stay short: the product caution comes with answers, deliveries and setup, while the
+  // overfill caution comes with every reading above the safe fill level.
+  const caution = status.overSafeFill ? statusCaution(status) : undefined;
   return {
     kind: 'confirmation',
     visibility: 'channel',
-    headline: `${status.tank.code}: ${measurementWords(reading)} = ${volume}`,
+    headline: `${status.tank.code}: ${readingHeadline(status, reading, isLatest)}`,
     facts,
     actions: [{ label: 'Undo', command: 'undo', style: 'danger' }],
     ...(caution ? { caution } : {}),
   };
+}
+
+/** "60 in = 470 gal (83%)", "62% = 1,753 L", "1,560 L (55%)". */
+function readingHeadline(status: TankStatus, reading: Reading, isLatest: boolean): string {
+  if (!isLatest || !status.latest) return `${measurementWords(reading)} logged`;
+  const volume = formatVolume(status.latest.volume, status.volumeUnit);
+  const percent = formatPercent(status.latest.fraction);
+  if (reading.kind === 'percent') return `${measurementWords(reading)} = ${volume}`;
+  if (reading.kind === 'volume') return `${volume} (${percent})`;
+  return `${measurementWords(reading)} = ${volume} (${percent})`;
 }
 
 interface UnitSuggestion {

@@ -3,6 +3,7 @@ import { userInfo } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import { runConsoleChat } from '../../adapters/console/console-chat.js';
+import { consoleSchedule } from '../../adapters/console/console-schedule.js';
 import { createBot } from '../../bot/bot.js';
 import { isValidTimeZone } from '../../bot/commands/time-zone.js';
 import { seedDemoTeam } from '../../bot/demo/seed-demo.js';
@@ -53,13 +54,13 @@ export const chatCommand: CliCommand = {
         `--time-zone "${zone}" is not an IANA zone name such as America/Chicago or Europe/Paris`,
       );
     }
-    let start = Date.now();
+    let start = 0;
     if (values.now !== undefined) {
       start = Date.parse(values.now);
       if (!Number.isFinite(start)) throw new UsageError(`--now "${values.now}" is not an ISO 8601 instant`);
     }
-    const startedAt = Date.now();
-    const clock = () => start + (Date.now() - startedAt);
+    // With --now the clock stands still (scripts and tests replay exactly); without it, it is the wall clock.
+    const clock = values.now !== undefined ? () => start : () => Date.now();
     const dbPath = resolve(values.db);
     if (!existsSync(dirname(dbPath))) mkdirSync(dirname(dbPath), { recursive: true });
 
@@ -81,6 +82,13 @@ export const chatCommand: CliCommand = {
       }
       const bot = createBot({ store, ...(zone ? { defaultTimeZone: zone } : {}) });
       const interactive = Boolean((io.stdin as { isTTY?: boolean }).isTTY);
+      const schedule = consoleSchedule({
+        store,
+        output: io.stdout,
+        clock,
+        log: (line) => io.stderr.write(`${line}\n`),
+        intervalMs: interactive ? 30_000 : 0,
+      });
       await runConsoleChat({
         bot,
         team: CONSOLE_TEAM,
@@ -90,7 +98,8 @@ export const chatCommand: CliCommand = {
         interactive,
         chartsDir: values.charts ? resolve(values.charts) : join(dirname(dbPath), 'charts'),
         clock,
-      });
+        afterLine: schedule.afterLine,
+      }).finally(schedule.stop);
     } finally {
       store.close();
     }
