@@ -133,7 +133,7 @@ function routeLine(line: string, word: string, context: ParseContext): Result<Co
 /** What follows a known tank name: "?", "+400 gal", "delivered 400 gal", "60in", "ullage 14in". */
 function afterTank(tank: string, rest: string, line: string, context: ParseContext): Result<Command> {
   const r = rest.toLowerCase();
-  if (r === '' || r === '?' || r === 'status' || r === 'status?') {
+  if (r === '' || /^(?:\?|status\??|runway\??|level\?)$/.test(r)) {
     return r === ''
       ? fail(`What about ${tank}? Log a reading like \`${tank} 60in\`, or ask \`${tank}?\`.`)
       : ok({ type: 'tank-question', tank });

@@ -8,7 +8,9 @@ const HOW_LONG =
   /^how\s+long\s+(?:does|will|would|can|is|for)?\s*(.+?)(?:\s+(?:last|go|run|keep\s+going|good\s+for|hold\s+out))?\s*\??$/i;
 const WHEN_EMPTY =
   /^when\s+(?:does|will|do|is)\s+(.+?)\s+(?:run\s+(?:out|dry|low)|empty|go\s+(?:dry|empty)|need\s+(?:a\s+)?(?:refill|order|delivery))\s*\??$/i;
-const STATUS_OF = /^(?:status|level|show|how\s+is|how's)\s+(?:of\s+)?(.+?)\s*\??$/i;
+const HOW_MUCH =
+  /^how\s+much\s+(?:is\s+|do\s+we\s+have\s+)?(?:left\s+)?(?:in\s+)?(.+?)(?:\s+(?:left|now))?\s*\??$/i;
+const STATUS_OF = /^(?:status|level|show|runway|how\s+is|how's)\s+(?:of\s+)?(.+?)\s*\??$/i;
 const RUNNING_LOW =
   /^(?:(?:which|what)\s+(?:tanks?\s+)?(?:will\s+|are\s+|is\s+|do\s+|does\s+)?(?:runs?|running|go(?:es)?|get(?:s)?|getting)\s+low|(?:running\s+)?low|who(?:'s|\s+is)?\s+(?:running\s+)?low)\b\s*(.*?)\s*\??$/i;
 
@@ -17,7 +19,7 @@ export function parseTankQuestion(
   text: string,
   context: ParseContext,
 ): Result<CommandOf<'tank-question'>> | undefined {
-  const match = HOW_LONG.exec(text) ?? WHEN_EMPTY.exec(text) ?? STATUS_OF.exec(text);
+  const match = HOW_LONG.exec(text) ?? HOW_MUCH.exec(text) ?? WHEN_EMPTY.exec(text) ?? STATUS_OF.exec(text);
   if (!match) return undefined;
   const words = (match[1] ?? '').replace(/^(?:the\s+)?(?:tank\s+)?/i, '').trim();
   const known = matchTankPrefix(words, context.tankNames);

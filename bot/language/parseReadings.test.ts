@@ -21,6 +21,20 @@ describe('readings', () => {
     );
   });
 
+  it.each(['T4 at 60in', 'T4: 60in', 'T4 is 60in', 'T4 reads 60in', 'T4 level 60in', 'T4 60in,'])(
+    '%s is a level of 60 in',
+    (text) => {
+      expect(commandOf(text)).toMatchObject({
+        type: 'reading',
+        measurement: { kind: 'level', length: { value: 60, unit: 'in' } },
+      });
+    },
+  );
+
+  it('reads a time after a comma', () => {
+    expect(commandOf('T4 60in, at 7:30')).toMatchObject({ time: { at: utc('2026-11-10T13:30:00Z') } });
+  });
+
   it('answers in the team spelling of the tank name', () => {
     expect(commandOf('t4 60 in')).toMatchObject({ type: 'reading', tank: 'T4' });
     expect(commandOf('north yard 2 48%')).toMatchObject({ type: 'reading', tank: 'North Yard 2' });
@@ -113,6 +127,10 @@ describe('questions', () => {
     ['how long does T4 last?', { type: 'tank-question', tank: 'T4' }],
     ['how long will North Yard 2 last', { type: 'tank-question', tank: 'North Yard 2' }],
     ['when does GEN-1 run out?', { type: 'tank-question', tank: 'GEN-1' }],
+    ['how much is left in T4?', { type: 'tank-question', tank: 'T4' }],
+    ['how much in north yard 2', { type: 'tank-question', tank: 'North Yard 2' }],
+    ['runway T4', { type: 'tank-question', tank: 'T4' }],
+    ['T4 runway?', { type: 'tank-question', tank: 'T4' }],
     ['all', { type: 'overview' }],
     ['status', { type: 'overview' }],
     ['All?', { type: 'overview' }],

@@ -15,9 +15,10 @@ const TIME_MARKER =
 /** Splits "60in at 7:30" into the body "60in" and the time words "at 7:30" (if any). */
 export function splitStatedTime(text: string): { body: string; timeText?: string } {
   const match = TIME_MARKER.exec(` ${text}`);
-  if (!match) return { body: text.trim() };
+  const trailing = /[\s,;]+$/;
+  if (!match) return { body: text.trim().replace(trailing, '') };
   const at = match.index; // index in the padded text = index of the space before the marker in `text` + 1
-  return { body: text.slice(0, at).trim(), timeText: text.slice(at).trim() };
+  return { body: text.slice(0, at).replace(trailing, ''), timeText: text.slice(at).trim() };
 }
 
 /** Little words around a time that carry no meaning of their own. */
