@@ -23,9 +23,13 @@ const ridge: RefillInput = {
     deliveryWeekdays: [2, 4],
     minimumOrder: 500,
     orderIncrement: 250,
+    // At 50% there is no safety stock (z = 0), so the hand arithmetic below is plain; tests of the margin
+    // set their own level.
+    serviceLevel: 0.5,
     timeZone: zone,
   },
 };
+const at95 = { ...ridge, settings: { ...ridge.settings, serviceLevel: 0.95 } };
 
 function plan(input: RefillInput): RefillPlan {
   const r = planRefill(input);
@@ -63,8 +67,8 @@ describe('planRefill', () => {
   });
 
   it('brings the threshold and the order forward when the rate is uncertain', () => {
-    const sure = plan(ridge);
-    const unsure = plan({ ...ridge, rateSigma: 15 });
+    const sure = plan(at95);
+    const unsure = plan({ ...at95, rateSigma: 15 });
     expect(unsure.thresholdAt ?? 0).toBeLessThan(sure.thresholdAt ?? 0);
     expect(unsure.orderBy ?? 0).toBeLessThanOrEqual(sure.orderBy ?? 0);
     expect(unsure.safetyStock).toBeGreaterThan(0);
@@ -72,10 +76,19 @@ describe('planRefill', () => {
 
   it('grows the safety margin with the age of the last reading', () => {
     // Same expected volume now, but one reading is 6 days old: its forecast is less sure.
-    const fresh = plan({ ...ridge, rateSigma: 10 });
-    const old = plan({ ...ridge, rateSigma: 10, lastReadingAt: ridge.now - 6 * 86_400_000, volume: 1500 });
+    const fresh = plan({ ...at95, rateSigma: 10 });
+    const old = plan({ ...at95, rateSigma: 10, lastReadingAt: ridge.now - 6 * 86_400_000, volume: 1500 });
     expect(old.thresholdAt ?? 0).toBeLessThan(fresh.thresholdAt ?? 0);
     expect(old.safetyStock).toBeGreaterThan(fresh.safetyStock);
+  });
+
+  it('keeps a margin for day-to-day variation even when the rate is known exactly', () => {
+    // sigma_1 = USE_CV x rate = 0.2 x 50 = 10 L/day; 95%: k = 1.6449 (unit normal table, from memory).
+    // 50 t + 1.6449 x 10 x sqrt(t) = 800 -> sqrt(t) = (-16.449 + sqrt(16.449^2 + 4 x 50 x 800)) / 100.
+    const p = plan(at95);
+    const u = (-16.449 + Math.sqrt(16.449 ** 2 + 4 * 50 * 800)) / 100;
+    expect(((p.thresholdAt ?? 0) - ridge.lastReadingAt) / 86_400_000).toBeCloseTo(u * u, 3);
+    expect(p.safetyStock).toBeGreaterThan(0);
   });
 
   it('says order now when the latest order time has passed, and sizes the order for the earliest delivery', () => {
@@ -129,7 +142,13 @@ describe('planRefill', () => {
       rate: -120,
       filling: true,
       capacity: 3000,
-      settings: { threshold: { percent: 80 }, leadTimeDays: 2, orderIncrement: 500, timeZone: zone },
+      settings: {
+        threshold: { percent: 80 },
+        leadTimeDays: 2,
+        orderIncrement: 500,
+        serviceLevel: 0.5,
+        timeZone: zone,
+      },
     });
     expect(p.mode).toBe('pick-up');
     // 2400 - 900 = 1500 L of room at 120 L/day: 12.5 days -> Sat 19 Dec 20:00; whole day before: Fri 18 Dec.

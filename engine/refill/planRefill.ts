@@ -9,6 +9,13 @@ import { parseRefillSettings, type RefillSettings, type RefillSettingsInput } fr
 const DAY_MS = 86_400_000;
 /** An order-by further out than this is "no order needed" (../shared/docs/cli-contract.md section 5). */
 export const ORDER_BY_WINDOW_DAYS = 14;
+/**
+ * Day-to-day variation of the use, as a fraction of the rate (σ_1 = USE_CV x rate). The rate's standard
+ * error says how well a steady rate is known, not how much one day differs from the next (shifts, weekends,
+ * weather, a process change); without a measured figure this is a design choice, checked against the
+ * closed-loop simulation in `npm run bench:accuracy`, not a fact of the trade.
+ */
+export const USE_CV = 0.2;
 /** A filtered volume may overshoot the capacity a little; beyond this it is a wrong reading or tank. */
 const OVER_CAPACITY_TOLERANCE = 0.02;
 
@@ -80,7 +87,8 @@ export function planRefill(input: RefillInput): Result<RefillPlan> {
   if (!threshold.ok) return threshold;
   const thresholdLitres = threshold.value;
   const headroom = filling ? thresholdLitres - volume : volume - thresholdLitres;
-  const days = daysToThreshold(headroom, flow, input.rateSigma, settings.serviceLevel);
+  const uncertainty = { sigmaPerDay: USE_CV * Math.max(0, flow), rateSigma: input.rateSigma };
+  const days = daysToThreshold(headroom, flow, uncertainty, settings.serviceLevel);
   const thresholdAt = days === null ? null : input.lastReadingAt + days * DAY_MS;
 
   const latest = thresholdAt === null ? null : latestOrderFor(thresholdAt, settings);
@@ -107,7 +115,7 @@ export function planRefill(input: RefillInput): Result<RefillPlan> {
 
   const rp = reorderPoint({
     demandPerDay: Math.max(0, flow),
-    sigmaPerDay: input.rateSigma,
+    ...uncertainty,
     leadTimeDays: (deliveryEnd - orderAt) / DAY_MS,
     serviceLevel: settings.serviceLevel,
     readingAgeDays: (orderAt - input.lastReadingAt) / DAY_MS,

@@ -49,7 +49,7 @@ describe('daysToThreshold', () => {
         fc.double({ min: 0, max: 200, noNaN: true }),
         fc.constantFrom(0.5, 0.9, 0.95, 0.99),
         (headroom, rate, sigma, level) => {
-          const t = daysToThreshold(headroom, rate, sigma, level, 1e9);
+          const t = daysToThreshold(headroom, rate, { sigmaPerDay: sigma }, level, 1e9);
           const k = serviceFactor(level);
           const u = (-k * sigma + Math.sqrt(k * k * sigma * sigma + 4 * rate * headroom)) / (2 * rate);
           expect(t).not.toBeNull();
@@ -59,12 +59,27 @@ describe('daysToThreshold', () => {
     );
   });
 
+  it('counts the rate error as persisting: r t + k s t = headroom when only the rate is uncertain', () => {
+    const k = serviceFactor(0.95);
+    const t = daysToThreshold(1000, 40, { sigmaPerDay: 0, rateSigma: 5 }, 0.95);
+    expect(t).toBeCloseTo(1000 / (40 + k * 5), 6);
+    const both = reorderPoint({
+      demandPerDay: 40,
+      sigmaPerDay: 6,
+      rateSigma: 2,
+      leadTimeDays: 4,
+      serviceLevel: 0.95,
+    });
+    // sqrt(6^2 x 4 + 2^2 x 16) = sqrt(144 + 64)
+    expect(both.safetyStock).toBeCloseTo(k * Math.sqrt(208), 9);
+  });
+
   it('is 0 at or below the threshold, null when the tank is not used or the answer is past the horizon', () => {
-    expect(daysToThreshold(0, 10, 1, 0.95)).toBe(0);
-    expect(daysToThreshold(-5, 10, 1, 0.95)).toBe(0);
-    expect(daysToThreshold(100, 0, 1, 0.95)).toBeNull();
-    expect(daysToThreshold(100, -3, 1, 0.95)).toBeNull();
-    expect(daysToThreshold(1e9, 0.001, 0, 0.95, 3650)).toBeNull();
+    expect(daysToThreshold(0, 10, { sigmaPerDay: 1 }, 0.95)).toBe(0);
+    expect(daysToThreshold(-5, 10, { sigmaPerDay: 1 }, 0.95)).toBe(0);
+    expect(daysToThreshold(100, 0, { sigmaPerDay: 1 }, 0.95)).toBeNull();
+    expect(daysToThreshold(100, -3, { sigmaPerDay: 1 }, 0.95)).toBeNull();
+    expect(daysToThreshold(1e9, 0.001, { sigmaPerDay: 0 }, 0.95, 3650)).toBeNull();
   });
 
   it('comes sooner at a higher service level (a law)', () => {
@@ -73,8 +88,8 @@ describe('daysToThreshold', () => {
         fc.double({ min: 1, max: 1e4, noNaN: true }),
         fc.double({ min: 0.5, max: 100, noNaN: true }),
         (h, r) => {
-          const low = daysToThreshold(h, r, 5, 0.9) ?? Number.POSITIVE_INFINITY;
-          const high = daysToThreshold(h, r, 5, 0.99) ?? Number.POSITIVE_INFINITY;
+          const low = daysToThreshold(h, r, { sigmaPerDay: 5 }, 0.9) ?? Number.POSITIVE_INFINITY;
+          const high = daysToThreshold(h, r, { sigmaPerDay: 5 }, 0.99) ?? Number.POSITIVE_INFINITY;
           return high <= low + 1e-9;
         },
       ),

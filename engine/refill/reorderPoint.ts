@@ -1,9 +1,12 @@
 // Reorder point and safety stock, after Silver, Pyke & Thomas, "Inventory and Production Management in
 // Supply Chains" (4th ed., CRC Press 2017), the continuous-review (s, Q) system with a cycle service level P1:
 //   s = x̂_L + k σ_L,  σ_L = σ_1 √L  (demand independent from day to day),  k = Φ⁻¹(P1).
-// Here "demand" is the tank's use: the rate (L/day) gives x̂, and the rate's uncertainty gives σ_1. The
-// forecast starts at the last reading, not at the order, so the uncertain span is the reading's age plus the
-// lead time: σ grows with the age of the last reading, as σ_1 √(age + L).
+// Here "demand" is the tank's use. Two things make the use over a span uncertain, and both are counted:
+// - day-to-day variation, σ_1 per day, which adds up as √L (the book's σ_L);
+// - the error of the estimated rate itself, which persists and so grows as L (the book notes, from memory,
+//   that measured σ_L often grows as L^c with c between 0.5 and 1; this is the c = 1 part).
+// The forecast starts at the last reading, not at the order, so the uncertain span is the reading's age plus
+// the lead time: the safety stock grows with the age of the last reading.
 import { serviceFactor } from './serviceFactor.js';
 
 export interface ReorderPointInput {
@@ -11,6 +14,8 @@ export interface ReorderPointInput {
   demandPerDay: number;
   /** Standard deviation of one day's use (σ_1), litres. */
   sigmaPerDay: number;
+  /** Standard error of the estimated rate, litres/day: an error that persists over the whole span. */
+  rateSigma?: number;
   /** Lead time L, days. */
   leadTimeDays: number;
   /** Target cycle service level P1, e.g. 0.95. */
@@ -31,32 +36,39 @@ export interface ReorderPoint {
 export function reorderPoint(input: ReorderPointInput): ReorderPoint {
   const leadTimeDemand = input.demandPerDay * input.leadTimeDays;
   const span = input.leadTimeDays + (input.readingAgeDays ?? 0);
-  const safetyStock = serviceFactor(input.serviceLevel) * useSpread(input.sigmaPerDay, span);
+  const safetyStock = serviceFactor(input.serviceLevel) * useSpread(input, span);
   return { leadTimeDemand, safetyStock, reorderPoint: leadTimeDemand + safetyStock };
 }
 
-/** Standard deviation of the use over `days` days when one day's use has standard deviation `sigmaPerDay`. */
-export function useSpread(sigmaPerDay: number, days: number): number {
-  return sigmaPerDay * Math.sqrt(Math.max(0, days));
+export interface UseUncertainty {
+  sigmaPerDay: number;
+  rateSigma?: number;
+}
+
+/** Standard deviation of the use over `days` days: sqrt(σ_1² d + σ_rate² d²), the two sources independent. */
+export function useSpread(u: UseUncertainty, days: number): number {
+  const d = Math.max(0, days);
+  const rateSigma = u.rateSigma ?? 0;
+  return Math.sqrt(u.sigmaPerDay * u.sigmaPerDay * d + rateSigma * rateSigma * d * d);
 }
 
 /**
  * Days after the last reading until the stock, at the service level, has used up `headroom` litres (the
- * volume above the threshold): the smallest t with  rate·t + k·useSpread(σ, t) >= headroom.
+ * volume above the threshold): the smallest t with  rate·t + k·useSpread(t) >= headroom.
  * The left side rises with t, so bisection finds it; null when the tank is not being used up (rate <= 0)
  * or the answer lies beyond `horizonDays`.
  */
 export function daysToThreshold(
   headroom: number,
   ratePerDay: number,
-  sigmaPerDay: number,
+  uncertainty: UseUncertainty,
   serviceLevel: number,
   horizonDays = 3650,
 ): number | null {
   if (headroom <= 0) return 0;
   if (!(ratePerDay > 0)) return null;
   const k = serviceFactor(serviceLevel);
-  const used = (t: number) => ratePerDay * t + k * useSpread(sigmaPerDay, t);
+  const used = (t: number) => ratePerDay * t + k * useSpread(uncertainty, t);
   let hi = headroom / ratePerDay; // the expected use alone reaches the headroom here; k >= 0 only adds
   if (hi > horizonDays) {
     if (used(horizonDays) < headroom) return null;
