@@ -11,6 +11,9 @@ describe('readings', () => {
     ['T4 157 cm', { kind: 'level', length: { value: 157, unit: 'cm', raw: '157 cm' } }],
     ['T4 48%', { kind: 'percent', percent: 48, raw: '48%' }],
     ['T4 410 gal', { kind: 'volume', volume: { value: 410, unit: 'gal', raw: '410 gal' } }],
+    ['T4 0.5 m3', { kind: 'volume', volume: { value: 0.5, unit: 'm3', raw: '0.5 m3' } }],
+    ['T4 12ft3', { kind: 'volume', volume: { value: 12, unit: 'ft3', raw: '12ft3' } }],
+    ['T4 60 in.', { kind: 'level', length: { value: 60, unit: 'in', raw: '60 in.' } }],
     ['T4 ullage 14in', { kind: 'ullage', length: { value: 14, unit: 'in', raw: '14in' } }],
     ['North Yard 2 1,550 L', { kind: 'volume', volume: { value: 1550, unit: 'L', raw: '1,550 L' } }],
   ])('%s', (text, measurement) => {

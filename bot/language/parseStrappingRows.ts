@@ -1,6 +1,7 @@
 import { fail, ok, type Result } from '../../engine/result.js';
-import { fromLitres, fromMetres, parseQuantity, toLitres, toMetres } from '../../engine/units/index.js';
+import { fromLitres, fromMetres, toLitres, toMetres } from '../../engine/units/index.js';
 import type { LengthUnitWord, VolumeUnitWord } from './command.js';
+import { readQuantity } from './measurement.js';
 import { DONE_WORDS } from './words.js';
 
 export type StrappingRow = [number, number];
@@ -19,7 +20,7 @@ function readCell(
   const bare = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)$/.test(cell) ? Number(cell) : undefined;
   if (bare !== undefined) return Number.isFinite(bare) ? ok(bare) : fail(`"${cell}" is not a number`);
   if (unit === undefined) return fail(`"${cell}": give bare numbers in the table's units`);
-  const quantity = parseQuantity(cell);
+  const quantity = readQuantity(cell);
   if (!quantity.ok) return fail(`"${cell}": ${quantity.error}`);
   const q = quantity.value;
   if (q.kind !== kind) return fail(`"${cell}" is not a ${kind}`);
