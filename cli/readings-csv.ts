@@ -30,12 +30,16 @@ const ISO_INSTANT = /^\d{4}-\d{2}-\d{2}[T ]\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d
 
 export function parseInstant(text: string): number | null {
   if (!ISO_INSTANT.test(text)) return null;
-  const ms = Date.parse(text.replace(' ', 'T').replace(/([+-]\d{2})$/, '$1:00'));
+  const normal =
+    text.length === 20 && text[10] === 'T' ? text : text.replace(' ', 'T').replace(/([+-]\d{2})$/, '$1:00');
+  const ms = Date.parse(normal);
   return Number.isFinite(ms) ? ms : null;
 }
 
+const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
 function parseNumber(text: string): number | null {
-  if (text === '' || !/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(text)) return null;
+  if (text === '' || !DECIMAL.test(text)) return null;
   const n = Number(text);
   return Number.isFinite(n) ? n : null;
 }

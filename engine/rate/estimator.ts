@@ -9,7 +9,20 @@ import { type Prediction, predict, reseedVolume, update } from './kalman.js';
 import { pointFrom, rejectedPoint } from './point.js';
 import { bestSplit, clearRecent, fitRecent, pushRecent, trimRecent } from './recent.js';
 import { deviationReason, unitSlipReason } from './suspect.js';
-import {
+import * as tuning from './tuning.js';
+import type {
+  RateChange,
+  RateEstimator,
+  RateEstimatorState,
+  RateOptions,
+  RatePoint,
+  SuspectReading,
+  TankEvent,
+  TimedVolume,
+} from './types.js';
+
+// Copied once into local constants: the hot path then reads plain values, not module bindings.
+const {
   CHANGE_SETTLE_DAYS,
   CUSUM_DECORRELATION_DAYS,
   CUSUM_H,
@@ -24,17 +37,7 @@ import {
   RATE_MEMORY_INTERVALS,
   RECENT_KEEP_DAYS,
   RELEARN_WIDEN,
-} from './tuning.js';
-import type {
-  RateChange,
-  RateEstimator,
-  RateEstimatorState,
-  RateOptions,
-  RatePoint,
-  SuspectReading,
-  TankEvent,
-  TimedVolume,
-} from './types.js';
+} = tuning;
 
 export function initialState(options: RateOptions = {}): RateEstimatorState {
   const capacity = options.capacity !== undefined && options.capacity > 0 ? options.capacity : null;

@@ -1,5 +1,8 @@
 // Building the RatePoint the estimator reports after each reading.
-import { DAY_MS, RATE_SIGMA_CORRELATION_DAYS, RATE_SIGMA_PER_OCTAVE, Z80 } from './tuning.js';
+import * as tuning from './tuning.js';
+
+const { DAY_MS, RATE_SIGMA_CORRELATION_DAYS, RATE_SIGMA_PER_OCTAVE, Z80 } = tuning;
+
 import type { RateEstimatorState, RatePoint } from './types.js';
 
 export function pointFrom(
@@ -18,10 +21,11 @@ export function pointFrom(
     rateLow: s.r - Z80 * sigma,
     rateHigh: s.r + Z80 * sigma,
     rateSigma: sigma,
+    // Always present (undefined when trusted) so every point has one shape.
+    suspect,
     readings: s.count - s.basisCount + 1,
     basisDays: (time - s.basisStart) / DAY_MS,
   };
-  if (suspect !== undefined) point.suspect = suspect;
   return point;
 }
 
