@@ -4,7 +4,8 @@ import { join } from 'node:path';
 import { PassThrough } from 'node:stream';
 import { DateTime } from 'luxon';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { main } from './main.js';
+import { analyzeCommand } from './commands/analyze.js';
+import { UsageError } from './io.js';
 
 let dir: string;
 beforeAll(async () => {
@@ -23,7 +24,10 @@ async function run(args: string[]) {
       return true;
     },
   });
-  const code = await main(args, {
+  // The analyze command alone (not the whole command registry), with cli/main.ts's rule for UsageError.
+  const [name, ...rest] = args;
+  if (name !== 'analyze') throw new Error('these tests run analyze');
+  const io = {
     stdout: sink((t) => {
       stdout += t;
     }),
@@ -31,7 +35,15 @@ async function run(args: string[]) {
       stderr += t;
     }),
     stdin: new PassThrough(),
-  });
+  };
+  let code: number;
+  try {
+    code = await analyzeCommand.run(rest, io);
+  } catch (error) {
+    if (!(error instanceof UsageError)) throw error;
+    stderr += `tankrunway analyze: ${error.message}\n`;
+    code = 2;
+  }
   return { code, stdout, stderr };
 }
 
