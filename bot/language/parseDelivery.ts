@@ -66,15 +66,22 @@ export function parseDeliveredTo(text: string, context: ParseContext): Result<Co
   const extras = extractExtras(text, context);
   if (!extras.ok) return extras;
   const match = DELIVERED_TO.exec(extras.value.body);
+  // "delivered to T4 150 gal", "delivery T4 150 gal": the tank first.
+  const tankFirst = /^(?:delivered|delivery|received|got|filled)\s+(?:(?:to|into|for)\s+)?(.+)$/i.exec(
+    extras.value.body,
+  );
+  const known = matchTankPrefix(tankFirst?.[1] ?? '', context.tankNames);
+  if (known && known.rest !== '' && /^[\d.]/.test(known.rest))
+    return build(known.tank, known.rest, extras.value, text);
   if (!match) {
     return fail(
       'Write a delivery like `delivered 150 gal to T4`, optionally with `ticket 8812`, `level after 61in` and a time.',
     );
   }
   const tankText = (match[2] ?? '').trim();
-  const known = matchTankPrefix(tankText, context.tankNames);
-  if (known?.rest !== '') return fail(unknownTankMessage(tankText, context.tankNames));
-  return build(known.tank, match[1] ?? '', extras.value, text);
+  const tank = matchTankPrefix(tankText, context.tankNames);
+  if (tank?.rest !== '') return fail(unknownTankMessage(tankText, context.tankNames));
+  return build(tank.tank, match[1] ?? '', extras.value, text);
 }
 
 /** After a tank name: "+400 gal ..." or "delivered 400 gal ...". */

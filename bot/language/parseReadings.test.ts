@@ -84,6 +84,8 @@ describe('deliveries', () => {
     ['delivered 150 gal to T4', { tank: 'T4', volume: { value: 150, unit: 'gal', raw: '150 gal' } }],
     ['T4 +400 gal', { tank: 'T4', volume: { value: 400, unit: 'gal', raw: '400 gal' } }],
     ['T4 delivered 400 gal', { tank: 'T4', volume: { value: 400, unit: 'gal' } }],
+    ['delivered to T4 400 gal', { tank: 'T4', volume: { value: 400, unit: 'gal' } }],
+    ['delivery North Yard 2 2000 L', { tank: 'North Yard 2', volume: { value: 2000, unit: 'L' } }],
     ['delivery of 2,000 L to North Yard 2', { tank: 'North Yard 2', volume: { value: 2000, unit: 'L' } }],
     ['delivered 150 gal to T4 ticket 8812', { tank: 'T4', ticket: '8812' }],
     [
