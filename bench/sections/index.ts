@@ -1,8 +1,7 @@
 import type { BenchSection } from '../harness.js';
 import { languageSection } from './language.js';
 import { rateSection } from './rate.js';
-import { replyLatencySection } from './reply-latency.js';
 import { slackLoadSection } from './slack-load.js';
 
 /** Every section of `npm run bench`, in print order; each lives in its own file beside this one. */
-export const sections: BenchSection[] = [languageSection, slackLoadSection, rateSection, replyLatencySection];
+export const sections: BenchSection[] = [languageSection, slackLoadSection, rateSection];
