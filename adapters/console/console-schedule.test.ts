@@ -61,14 +61,16 @@ describe('the console shows digests and notices as they fire', () => {
       ],
       Date.parse('2026-11-09T06:00:00Z'),
     );
-    if (process.env.H7_DEBUG) console.log(out);
     const banners = out.match(/\[morning digest to #console\]/g) ?? [];
     expect(banners).toHaveLength(2);
     const first = out.indexOf('[morning digest to #console]');
     expect(out.indexOf('Clock set to 2026-11-09T13:05:00.000Z')).toBeLessThan(first);
+    // T4's last reading is four days old: the digest says so, and the daily reminder follows.
     expect(out.slice(first)).toMatch(
-      /^\[morning digest to #console\]\n(Morning digest|All clear), Mon 9 Nov/,
+      /^\[morning digest to #console\]\nMorning digest, Mon 9 Nov: 1 thing needs attention\./,
     );
+    expect(out).toContain('Overdue readings:  T4: last read 4 days ago');
+    expect(out).toMatch(/\[reminder to #console\]\nT4 has had no reading for 4 days/);
     // `digest now` answers with the same digest model, without a banner (it is a reply, not a post).
     expect(out).toMatch(/\n\n(Morning digest|All clear)[^\n]*Mon 9 Nov[^\n]*\n/);
     expect(out).toContain('T4');

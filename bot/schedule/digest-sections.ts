@@ -113,12 +113,20 @@ export function usualInterval(status: TankStatus): number | undefined {
   return gaps.length % 2 === 1 ? gaps[mid]! : (gaps[mid - 1]! + gaps[mid]!) / 2;
 }
 
+/** Days without a reading after which any tank is overdue (and gets the daily stale reminder). */
+export const DEFAULT_STALE_DAYS = 3;
+
 /**
  * Overdue: the last reading is older than 1.5 times the tank's usual interval and at least an hour past it
  * (our own rule, so a daily reading taken at 08:00 is not overdue at a 07:00 digest, and a 15-minute sensor
- * is not overdue after one late sample). A tank with no reading at all is listed too.
+ * is not overdue after one late sample), or older than `staleDays` whatever the interval. A tank with no
+ * reading at all is listed too.
  */
-export function overdueLines(statuses: readonly TankStatus[], now: number): string[] {
+export function overdueLines(
+  statuses: readonly TankStatus[],
+  now: number,
+  staleDays = DEFAULT_STALE_DAYS,
+): string[] {
   const lines: { age: number; text: string }[] = [];
   for (const s of statuses) {
     if (!s.latest) {
@@ -128,11 +136,10 @@ export function overdueLines(statuses: readonly TankStatus[], now: number): stri
     }
     const usual = usualInterval(s);
     const age = now - s.latest.time;
-    if (usual === undefined || usual <= 0 || age <= Math.max(1.5 * usual, usual + HOUR)) continue;
-    lines.push({
-      age,
-      text: `${tankLabel(s)}: last read ${ageWords(age)} ago (usually every ${ageWords(usual)})`,
-    });
+    const late = usual !== undefined && usual > 0 && age > Math.max(1.5 * usual, usual + HOUR);
+    if (!late && age < staleDays * 24 * HOUR) continue;
+    const habit = usual !== undefined && usual > 0 ? ` (usually every ${ageWords(usual)})` : '';
+    lines.push({ age, text: `${tankLabel(s)}: last read ${ageWords(age)} ago${habit}` });
   }
   return lines.sort((a, b) => b.age - a.age).map((l) => l.text);
 }

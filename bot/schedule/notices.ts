@@ -11,6 +11,7 @@ import type { Reply } from '../replies/reply.js';
 import type { Store } from '../store/open-store.js';
 import type { Team } from '../store/types.js';
 import { tankStatus } from '../tank-status.js';
+import { DEFAULT_STALE_DAYS } from './digest-sections.js';
 import { checkTimeZone, formatLocalDate, instantOfLocal, localDateOf, parseWallTime } from './local-time.js';
 import { type NoticeState, stepNotice } from './notice-machine.js';
 import {
@@ -25,7 +26,7 @@ import type { PostKey } from './posts.js';
 import type { ClaimNotices } from './scheduler.js';
 
 export interface NoticeOptions extends Partial<NoticeBands> {
-  /** Days without a reading before a tank counts as stale. Default 3. */
+  /** Days without a reading before a tank counts as stale. Default 3 (DEFAULT_STALE_DAYS). */
   staleDays?: number;
 }
 
@@ -69,14 +70,13 @@ function staleReply(code: string, name: string, days: number): Reply {
   return {
     kind: 'notice',
     visibility: 'channel',
-    headline: `${label} has had no reading for ${Math.floor(days)} days: its runway and orders are guesses until someone reads it.`,
-    actions: [{ label: `Log ${code}`, command: `${code} ` }],
+    headline: `${label} has had no reading for ${Math.round(days)} days: its runway and orders are guesses until someone reads it (e.g. \`${code} 52in\`).`,
   };
 }
 
 export function noticesFromStore(options: NoticeOptions = {}): ClaimNotices {
   const bands: NoticeBands = { ...DEFAULT_BANDS, ...options };
-  const staleMs = (options.staleDays ?? 3) * DAY;
+  const staleMs = (options.staleDays ?? DEFAULT_STALE_DAYS) * DAY;
   let states: ReturnType<typeof statesRepo> | undefined;
   let statesDb: Database.Database | undefined;
 
