@@ -303,8 +303,12 @@ export class Estimator implements RateEstimator {
     const tolerance = EVENT_Z * Math.sqrt(2 * R + dt * dt * pr.p11);
     const sameSide =
       Math.sign(prev.volume - (pr.v + s.r * ((time - prev.time) / DAY_MS))) === Math.sign(volume - pr.v);
+    const first = s.pending[0]!;
+    if (sameSide && this.looksLikeRateChange(first, prev, volume, dt)) {
+      this.absorbAsRateChange(time);
+      return this.point(time, undefined);
+    }
     if ((Math.abs(step) < tolerance && sameSide) || s.pending.length >= MAX_PENDING) {
-      const first = s.pending[0]!;
       const logged = this.takeLogged(time, volume - pr.v);
       const start = logged ? logged.time : (s.lastTime! + first.time) / 2;
       const end = s.pending.length >= 2 ? prev.time : time;
@@ -313,6 +317,47 @@ export class Estimator implements RateEstimator {
       return this.point(time, undefined);
     }
     return this.pendingPoint(time, pr, deviationReason(volume, pr.v));
+  }
+
+  /**
+   * On sparse readings a faster (or slower) use also leaves the level off its prediction, in the direction of
+   * use. A step is a withdrawal when the next interval goes on at the old rate, a rate change when it goes on
+   * at the rate the first deviation implies.
+   */
+  private looksLikeRateChange(first: TimedVolume, prev: TimedVolume, volume: number, dt: number): boolean {
+    const s = this.s;
+    if (s.dtMean < DENSE_INTERVAL_DAYS || s.pending.length !== 2) return false;
+    const refillSign = s.filling ? -1 : 1;
+    const firstDt = (first.time - s.lastTime!) / DAY_MS;
+    const deviation = first.volume - (s.v - s.r * firstDt);
+    if (Math.sign(deviation) === refillSign || firstDt <= 0) return false;
+    const implied = s.r - deviation / firstDt;
+    const oldError = Math.abs(volume - (prev.volume - s.r * dt));
+    const newError = Math.abs(volume - (prev.volume - implied * dt));
+    return newError < oldError;
+  }
+
+  /** Feeds the waiting readings to the filter after forgetting the rate, and marks a change. */
+  private absorbAsRateChange(time: number): void {
+    const s = this.s;
+    const readings = s.pending;
+    s.pending = [];
+    const from = s.r;
+    const at = s.lastTime!;
+    const first = readings[0]!;
+    const firstDt = Math.max((first.time - at) / DAY_MS, 1e-9);
+    const deviation = first.volume - (s.v - s.r * firstDt);
+    s.p11 += (deviation / firstDt) ** 2;
+    s.p01 = 0;
+    for (const r of readings) {
+      const R = this.noiseVar();
+      const pr = this.predictTo(r.time, R);
+      this.filterUpdate(r.time, r.volume, r.volume - pr.v, pr, R);
+    }
+    this.resetCusum();
+    s.basisStart = at;
+    s.basisCount = s.count - readings.length + 1;
+    if (!s.changePending) s.changePending = { at, from, alarm: time, count: s.count };
   }
 
   private acceptShift(
