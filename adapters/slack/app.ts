@@ -79,7 +79,8 @@ export function createSlackAdapter(options: SlackAdapterOptions): SlackAdapter {
       logLevel,
       ...(options.logger ? { logger: options.logger } : {}),
     });
-    http.requestListener = rejectFutureRequests(http.requestListener, clock);
+    // Signatures are judged on the real clock, whatever clock the bot is given.
+    http.requestListener = rejectFutureRequests(http.requestListener);
     receiver = http;
   }
 

@@ -4,6 +4,7 @@ import { chartCommand } from './chart.js';
 import { chatCommand } from './chat.js';
 import { etaCommand } from './eta.js';
 import { levelCommand } from './level.js';
+import { serveCommand } from './serve.js';
 import { volumeCommand } from './volume.js';
 
 /** Every `tankrunway <command>`; each lives in its own file beside this one. */
@@ -14,4 +15,5 @@ export const commands: CliCommand[] = [
   levelCommand,
   etaCommand,
   chartCommand,
+  serveCommand,
 ];
