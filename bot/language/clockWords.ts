@@ -27,17 +27,38 @@ export function readWeekdays(text: string): Result<number[]> {
   return ok([...days].sort((a, b) => a - b));
 }
 
+export interface ClockTime {
+  hour: number;
+  minute: number;
+}
+
+/** "7", "7am", "07:00", "4:30 pm", "7.30", "noon", "midnight" -> a time of day on the 24-hour clock. */
+export function readClockTime(text: string): Result<ClockTime> {
+  const t = text.trim().toLowerCase();
+  if (t === 'noon' || t === 'midday') return ok({ hour: 12, minute: 0 });
+  if (t === 'midnight') return ok({ hour: 0, minute: 0 });
+  const m = /^(\d{1,2})(?:[:.](\d{2}))?\s*(?:([ap])\.?m?\.?)?$/.exec(t);
+  let hour = Number(m?.[1]);
+  const minute = Number(m?.[2] ?? 0);
+  const half = m?.[3];
+  if (half && (hour < 1 || hour > 12)) hour = Number.NaN;
+  if (half === 'p' && hour < 12) hour += 12;
+  if (half === 'a' && hour === 12) hour = 0;
+  if (!m || !(hour >= 0 && hour <= 23) || minute > 59) {
+    return fail(`"${text.trim()}" is not a time of day; write it like 07:00, 7:30, 4pm or noon.`);
+  }
+  return ok({ hour, minute });
+}
+
+/** "07:00" from a time of day. */
+export const formatClock = ({ hour, minute }: ClockTime): string =>
+  `${String(hour).padStart(2, '0')}:${String(minute).padStart(2, '0')}`;
+
 /** "12", "noon", "14:00", "2pm" -> an hour of the day 0-23 (minutes must be :00). */
 export function readHourOfDay(text: string): Result<number> {
-  const t = text.trim().toLowerCase();
-  if (t === 'noon' || t === 'midday') return ok(12);
-  if (t === 'midnight') return ok(0);
-  const m = /^(\d{1,2})(?::00)?\s*([ap])?\.?m?\.?$/.exec(t);
-  let hour = Number(m?.[1]);
-  if (m?.[2] && (hour < 1 || hour > 12)) return fail(`"${text}" is not an hour; write it like 14:00 or 2pm.`);
-  if (m?.[2] === 'p' && hour < 12) hour += 12;
-  if (m?.[2] === 'a' && hour === 12) hour = 0;
-  if (!m || !(hour >= 0 && hour <= 23))
-    return fail(`"${text}" is not an hour of the day; write it like 14:00, 2pm or noon.`);
-  return ok(hour);
+  const time = readClockTime(text);
+  if (!time.ok) return fail(`"${text.trim()}" is not an hour of the day; write it like 14:00, 2pm or noon.`);
+  if (time.value.minute !== 0)
+    return fail(`"${text.trim()}" is not an hour; give a whole hour like 14:00 or 2pm.`);
+  return ok(time.value.hour);
 }

@@ -1,10 +1,11 @@
 import { fail, ok, type Result } from '../../engine/result.js';
 import { parseUnit } from '../../engine/units/index.js';
+import { readClockTime } from './clockWords.js';
 import { type CommandOf, lengthUnitSchema, type ParseContext, volumeUnitSchema } from './command.js';
 import { matchTankPrefix, unknownTankMessage } from './tankName.js';
 
 const DELETE_READING =
-  /^(?:delete|remove|drop|discard)\s+(?:the\s+)?(?:(.+?)(?:'s)?\s+)?(\d{1,2})(?:[:.](\d{2}))?\s*([ap]\.?m\.?)?\s+(?:reading|one|entry)(?:\s+(?:of|for|on|from)\s+(.+?))?\s*$/i;
+  /^(?:delete|remove|drop|discard)\s+(?:the\s+)?(?:(.+?)(?:'s)?\s+)?(\d{1,2}(?:[:.]\d{2})?\s*(?:[ap]\.?m\.?)?)\s+(?:reading|one|entry)(?:\s+(?:of|for|on|from)\s+(.+?))?\s*$/i;
 
 /** "delete the 7:30 reading", "delete the 7:30 reading of T4", "delete T4's 4pm reading". */
 export function parseDeleteReading(
@@ -13,16 +14,10 @@ export function parseDeleteReading(
 ): Result<CommandOf<'delete-reading'>> | undefined {
   const m = DELETE_READING.exec(text);
   if (!m) return undefined;
-  let hour = Number(m[2]);
-  const minute = Number(m[3] ?? 0);
-  const half = m[4]?.[0]?.toLowerCase();
-  if (half && (hour < 1 || hour > 12))
-    return fail(`"${m[2]}${m[4]}" is not a time; write it like 7:30 or 4pm.`);
-  if (half === 'p' && hour < 12) hour += 12;
-  if (half === 'a' && hour === 12) hour = 0;
-  if (hour > 23 || minute > 59)
-    return fail(`"${m[2]}:${m[3]}" is not a time of day; write it like 7:30 or 16:45.`);
-  const tankText = (m[1] ?? m[5] ?? '').trim();
+  const time = readClockTime(m[2] ?? '');
+  if (!time.ok) return time;
+  const { hour, minute } = time.value;
+  const tankText = (m[1] ?? m[3] ?? '').trim();
   if (tankText === '') return ok({ type: 'delete-reading', hour, minute, raw: text });
   const known = matchTankPrefix(tankText, context.tankNames);
   if (known?.rest !== '') return fail(unknownTankMessage(tankText, context.tankNames));

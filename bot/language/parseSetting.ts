@@ -1,6 +1,6 @@
 import { fail, ok, type Result } from '../../engine/result.js';
 import { checkTimeZone } from '../schedule/local-time.js';
-import { readHourOfDay, readWeekdays } from './clockWords.js';
+import { formatClock, readClockTime, readHourOfDay, readWeekdays } from './clockWords.js';
 import type { CommandOf, ParseContext, Setting } from './command.js';
 import { parsePercent, parseVolume } from './measurement.js';
 import { matchTankPrefix, unknownTankMessage } from './tankName.js';
@@ -10,42 +10,48 @@ const SET_FORMS =
 
 type SettingReader = (value: string) => Result<Setting>;
 
-/** Setting names (longest first wins) and how each reads its value. */
+/** Each tank setting: the words that name it and how it reads its value. */
 const TANK_SETTINGS: [RegExp, SettingReader][] = [
-  [/^(?:threshold|reorder(?:\s+point)?|alert(?:\s+at)?|warn(?:\s+at)?)$/i, readThreshold],
-  [/^lead[\s-]?time$/i, readLeadTime],
-  [/^(?:order\s+)?cut[\s-]?off(?:\s+hour)?$/i, (v) => mapHour(v)],
+  [/threshold|reorder(?:\s+point)?|alert(?:\s+at)?|warn(?:\s+at)?/, readThreshold],
+  [/lead[\s-]?time/, readLeadTime],
   [
-    /^deliver(?:y|ies)\s+days?$/i,
+    /(?:order\s+)?cut[\s-]?off(?:\s+hour)?/,
+    (v) => mapResult(readHourOfDay(v), (hour) => ({ key: 'order-cutoff', hour })),
+  ],
+  [
+    /deliver(?:y|ies)\s+days?/,
     (v) => mapResult(readWeekdays(v), (weekdays) => ({ key: 'delivery-days', weekdays })),
   ],
   [
-    /^min(?:imum)?\s+order$/i,
+    /min(?:imum)?\s+order/,
     (v) => mapResult(parseVolume(v, 'the minimum order'), (volume) => ({ key: 'minimum-order', volume })),
   ],
   [
-    /^(?:order\s+)?increments?$/i,
+    /(?:order\s+)?increments?/,
     (v) => mapResult(parseVolume(v, 'the order increment'), (volume) => ({ key: 'order-increment', volume })),
   ],
   [
-    /^(?:safe[\s-]?fill|fill\s+limit|max(?:imum)?\s+fill)$/i,
+    /safe[\s-]?fill|fill\s+limit|max(?:imum)?\s+fill/,
     (v) => mapResult(parsePercent(v, 'the safe fill'), (percent) => ({ key: 'safe-fill', percent })),
   ],
-  [/^product$/i, (v) => ({ ok: true, value: { key: 'product', product: unquote(v) } })],
-  [/^site$/i, (v) => ({ ok: true, value: { key: 'site', site: unquote(v) } })],
+  [/product/, (v) => ok({ key: 'product', product: unquote(v) })],
+  [/site/, (v) => ok({ key: 'site', site: unquote(v) })],
 ];
-const SETTING_NAMES =
-  /^(threshold|reorder point|reorder|alert at|alert|warn at|warn|lead[\s-]?time|order cut[\s-]?off hour|order cut[\s-]?off|cut[\s-]?off hour|cut[\s-]?off|delivery days|delivery day|deliveries days|minimum order|min order|order increments?|increments?|safe[\s-]?fill|fill limit|max(?:imum)? fill|product|site)\b\s*(?:to\s+|=\s*|:\s*)?(.*)$/i;
+
+/** The setting named at the start of `text`, and the words of its value. */
+function findSetting(text: string): { read: SettingReader; name: string; value: string } | undefined {
+  for (const [names, read] of TANK_SETTINGS) {
+    const m = new RegExp(`^(${names.source})\\b\\s*(?:to\\s+|=\\s*|:\\s*)?(.*)$`, 'i').exec(text);
+    if (m) return { read, name: m[1] ?? '', value: (m[2] ?? '').trim() };
+  }
+  return undefined;
+}
 
 function mapResult<T>(result: Result<T>, build: (value: T) => Setting): Result<Setting> {
   return result.ok ? ok(build(result.value)) : result;
 }
 
 const unquote = (text: string): string => text.trim().replace(/^"(.*)"$|^'(.*)'$/, '$1$2');
-
-function mapHour(text: string): Result<Setting> {
-  return mapResult(readHourOfDay(text), (hour) => ({ key: 'order-cutoff', hour }));
-}
 
 /** `20%`, `150 gal`, `5 days`. */
 function readThreshold(text: string): Result<Setting> {
@@ -96,17 +102,14 @@ export function parseSet(text: string, context: ParseContext): Result<CommandOf<
   const known = matchTankPrefix(rest, context.tankNames);
   if (!known) {
     const word = rest.split(/\s+/)[0] ?? '';
-    if (SETTING_NAMES.test(rest)) return fail(`Name the tank first: \`set T4 ${rest}\`.`);
+    if (findSetting(rest)) return fail(`Name the tank first: \`set T4 ${rest}\`.`);
     return fail(word ? unknownTankMessage(word, context.tankNames) : `Say what to set, ${SET_FORMS}.`);
   }
   if (known.rest === '') return fail(`Say what to set for ${known.tank}, ${SET_FORMS}.`);
-  const setting = SETTING_NAMES.exec(known.rest);
+  const setting = findSetting(known.rest);
   if (!setting) return fail(`I do not know the setting "${known.rest}"; ${SET_FORMS}.`);
-  const [, name = '', value = ''] = setting;
-  const reader = TANK_SETTINGS.find(([pattern]) => pattern.test(name.replace(/\s+/g, ' ')));
-  if (!reader) return fail(`I do not know the setting "${name}"; ${SET_FORMS}.`);
-  if (value.trim() === '') return fail(`Give a value for ${name}, ${SET_FORMS}.`);
-  const parsed = reader[1](value.trim());
+  if (setting.value === '') return fail(`Give a value for ${setting.name}, ${SET_FORMS}.`);
+  const parsed = setting.read(setting.value);
   if (!parsed.ok) return parsed;
   return ok({ type: 'set', tank: known.tank, setting: parsed.value, raw: text });
 }
@@ -123,27 +126,11 @@ function readDigest(text: string): Result<Setting> {
     return fail(
       'Write the digest like `set digest 07:00 weekdays here` (a time, optional days, optional channel).',
     );
-  const time = readClock(match[1] ?? '');
+  const time = readClockTime(match[1] ?? '');
   if (!time.ok) return time;
   const daysText = (match[2] ?? '').replace(/^on\s+/i, '').trim();
   const weekdays = daysText === '' ? ok([1, 2, 3, 4, 5, 6, 7]) : readWeekdays(daysText);
   if (!weekdays.ok) return weekdays;
   const where = (match[3] ?? 'here').toLowerCase() === 'this channel' ? 'here' : (match[3] ?? 'here');
-  return ok({ key: 'digest', time: time.value, weekdays: weekdays.value, channel: where });
+  return ok({ key: 'digest', time: formatClock(time.value), weekdays: weekdays.value, channel: where });
 }
-
-/** "7", "7am", "07:00", "4:30 pm" -> "HH:MM". */
-function readClock(text: string): Result<string> {
-  const m = /^(\d{1,2})(?:[:.](\d{2}))?\s*([ap])?\.?m?\.?$/i.exec(text.trim());
-  let hour = Number(m?.[1]);
-  const minute = Number(m?.[2] ?? 0);
-  const half = m?.[3]?.toLowerCase();
-  if (half && (hour < 1 || hour > 12)) hour = Number.NaN;
-  if (half === 'p' && hour < 12) hour += 12;
-  if (half === 'a' && hour === 12) hour = 0;
-  if (!m || !(hour >= 0 && hour <= 23) || minute > 59)
-    return fail(`"${text}" is not a time of day; write it like 07:00 or 7am.`);
-  return ok(`${String(hour).padStart(2, '0')}:${String(minute).padStart(2, '0')}`);
-}
-
-export { readClock };
