@@ -9,7 +9,13 @@ import { parseRunningLow, parseTankQuestion } from './parseQuestion.js';
 import { parseReading } from './parseReading.js';
 import { parseSet } from './parseSetting.js';
 import { parseStrappingLines } from './parseStrappingRows.js';
-import { isTankNameShaped, matchTankPrefix, typedTankPrefix, unknownTankMessage } from './tankName.js';
+import {
+  isReservedWord,
+  isTankNameShaped,
+  matchTankPrefix,
+  typedTankPrefix,
+  unknownTankMessage,
+} from './tankName.js';
 import {
   CANCEL_WORDS,
   COMMAND_EXAMPLES,
@@ -154,7 +160,7 @@ function parseRename(line: string, context: ParseContext): Result<Command> {
   const m = /^rename\s+(?:tank\s+)?(.+?)\s+(?:to\s+|as\s+|->\s*)?(\S+)$/i.exec(line);
   if (!m) return fail('Write it like `rename tank T4 to GEN-1`.');
   const newName = m[2] ?? '';
-  if (!isTankNameShaped(newName)) {
+  if (!isTankNameShaped(newName) || isReservedWord(newName)) {
     return fail(
       `"${newName}" cannot be a tank code; use letters and digits, e.g. \`rename tank T4 to GEN-1\`.`,
     );

@@ -2,7 +2,7 @@ import { fail, ok, type Result } from '../../engine/result.js';
 import type { CommandOf, LengthUnitWord, ParseContext, TankSpecInput, VolumeUnitWord } from './command.js';
 import { parseLength } from './measurement.js';
 import { parseStrappingLines } from './parseStrappingRows.js';
-import { isTankNameShaped } from './tankName.js';
+import { isReservedWord, isTankNameShaped } from './tankName.js';
 import {
   type Dimension,
   inUnit,
@@ -55,6 +55,8 @@ export function parseAddTank(
       `"${tank}" cannot be a tank code; use letters and digits (e.g. T4 or DIESEL-1), then the shape: ${EXAMPLE}.`,
     );
   }
+  if (isReservedWord(tank))
+    return fail(`"${tank}" is one of the bot's own words; choose another code, e.g. T4 or GEN-1.`);
   if (context.tankNames.some((n) => n.toLowerCase() === tank.toLowerCase())) {
     return fail(`You already have a tank ${tank}; choose another code, or \`remove tank ${tank}\` first.`);
   }

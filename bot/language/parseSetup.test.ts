@@ -107,6 +107,8 @@ describe('add tank in one line', () => {
     ['add tank T5 vertical-cylinder diameter=48in length=72in', /unit=gal/],
     ['add tank T5 vertical-cylinder diamter=48in length=72in unit=gal', /did you mean diameter=/],
     ['add tank T5 cube diameter=48in unit=gal', /"cube" is not a shape/],
+    ['add tank all vertical diameter=48in length=72in unit=gal', /bot's own words/],
+    ['add tank Undo sphere diameter=1m unit=L', /bot's own words/],
     ['add tank T5 vertical-cylinder diameter=48in length=72in unit=in', /not a volume unit/],
     ['add tank T5 vertical-cylinder diameter=0in length=72in unit=gal', /more than 0/],
     ['add tank T5 sphere diameter=2m heads=flat unit=L', /has no heads/],
@@ -176,6 +178,7 @@ describe('remove and rename', () => {
     ['remove tank T5', /Did you mean T4\?/],
     ['rename tank T4 to T9', /already a tank T9/],
     ['rename tank T4 to ???', /cannot be a tank code/],
+    ['rename tank T4 to status', /cannot be a tank code/],
   ])('%s is refused: %s', (text, message) => {
     expect(errorOf(text)).toMatch(message);
   });

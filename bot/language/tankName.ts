@@ -1,8 +1,21 @@
 import { closest, distance } from 'fastest-levenshtein';
 import { fail, ok, type Result } from '../../engine/result.js';
+import { CANCEL_WORDS, COMMAND_WORDS, NO_WORDS, OVERVIEW_WORDS, YES_WORDS } from './words.js';
 
 /** How a name is written in a message: letters, digits and a few joiners, at most 64 characters. */
 const TANK_NAME_PATTERN = /^[\p{L}\p{N}][\p{L}\p{N}_.\-/#]{0,63}$/u;
+
+/** Words a tank may not be called, or messages like "all" or "undo" would name it instead of asking. */
+export const isReservedWord = (word: string): boolean => {
+  const w = word.toLowerCase();
+  return (
+    COMMAND_WORDS.includes(w) ||
+    OVERVIEW_WORDS.has(w) ||
+    YES_WORDS.has(w) ||
+    NO_WORDS.has(w) ||
+    CANCEL_WORDS.has(w)
+  );
+};
 
 export const isTankNameShaped = (word: string): boolean => TANK_NAME_PATTERN.test(word);
 
