@@ -251,6 +251,32 @@ describe('Slack, end to end over HTTP', () => {
     expect(json).toContain('T4');
   });
 
+  it('survives signed requests that lack their parts or are not Slack payloads at all', async () => {
+    const form = 'application/x-www-form-urlencoded' as const;
+    const { postSigned } = await import('./signed-request.js');
+    const noTeam = new URLSearchParams({
+      command: '/tankrunway',
+      text: 'T4 60in',
+      channel_id: 'C0ODD',
+      user_id: 'U0ODD',
+      trigger_id: 'odd',
+      response_url: h.api.responseUrl('odd'),
+    });
+    expect((await postSigned(h.eventsUrl, noTeam.toString(), form, { secret: signingSecret })).status).toBe(
+      200,
+    );
+    const bad = await postSigned(h.eventsUrl, '{"type":', 'application/json', { secret: signingSecret });
+    expect(bad.status).toBeGreaterThanOrEqual(400);
+    const noText = mention('T0READ', 'C0ODD', '1764662400.000600', 'x');
+    await h.event({ ...noText, text: undefined }, { team: 'T0READ', eventId: 'EvOdd' });
+    await new Promise((r) => setTimeout(r, 100));
+    expect(store.teams.list().some((t) => t.id.includes('undefined'))).toBe(false);
+    expect(h.api.responses.some((r) => r.id === 'odd')).toBe(false);
+    // The adapter still works afterwards.
+    const reply = await say('T0READ', 'T4 59in');
+    expect(String(reply.body.text)).toMatch(/^T4: 59 in/);
+  });
+
   it('needed exactly the scopes the manifest asks for', () => {
     const methods = new Set(h.api.calls.map((c) => c.method));
     for (const m of methods) expect(Object.keys(scopeFor)).toContain(m);

@@ -14,6 +14,10 @@ export function listenForCommand(app: App, ctx: SlackContext, command: string): 
     // Acknowledge first: Slack shows an error after 3 s, and the work below may take longer.
     await ack();
     const receivedAt = ctx.clock();
+    if (!c.team_id || !c.channel_id || !c.user_id || typeof c.text !== 'string') {
+      ctx.logger.warn('slash command without a team, channel, user or text: ignored');
+      return;
+    }
     const openModal = modalWords[c.text.trim().toLowerCase()];
     if (openModal) {
       try {

@@ -12,7 +12,8 @@ export function listenForMentions(app: App, ctx: SlackContext): void {
     const receivedAt = ctx.clock();
     const teamId = event.team ?? body.team_id;
     const user = event.user;
-    if (!teamId || !user) return; // a bot's or a system message: nobody to answer
+    // A bot's or a system message, or one Slack sent without its parts: nobody to answer.
+    if (!teamId || !user || !event.channel || typeof event.text !== 'string') return;
     const timeZone = await ctx.zones.zoneOf(teamId, user);
     const request = toRequest({
       teamId,
