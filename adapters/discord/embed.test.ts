@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { Reply } from '../../bot/replies/reply.js';
 import { ACTION_PREFIX, actionCommand, actionRows, KIND_COLORS, LIMITS, replyEmbed } from './embed.js';
@@ -114,5 +115,42 @@ describe('action buttons', () => {
       ],
     };
     expect(actionRows(many).map((r) => r.components.length)).toEqual([5, 2]);
+  });
+});
+
+describe('any reply (property)', () => {
+  const text = fc.string({ maxLength: 3000, unit: 'binary' });
+  const reply = fc.record({
+    kind: fc.constantFrom('confirmation', 'answer', 'question', 'error', 'help', 'digest', 'notice' as const),
+    visibility: fc.constantFrom('channel', 'sender' as const),
+    headline: text,
+    facts: fc.array(fc.record({ label: fc.string({ maxLength: 300 }), value: text }), { maxLength: 30 }),
+    table: fc.record({
+      columns: fc.array(fc.string({ maxLength: 40 }), { maxLength: 6 }),
+      rows: fc.array(fc.array(fc.string({ maxLength: 80 }), { maxLength: 6 }), { maxLength: 80 }),
+    }),
+    caution: fc.option(text, { nil: undefined }),
+    actions: fc.array(fc.record({ label: fc.string(), command: fc.string({ maxLength: 120 }) }), {
+      maxLength: 30,
+    }),
+  });
+
+  it('becomes an embed within every Discord limit, never throwing', () => {
+    fc.assert(
+      fc.property(reply, (r) => {
+        const e = replyEmbed(r as Reply);
+        expect(e.title?.length ?? 0).toBeLessThanOrEqual(LIMITS.title);
+        expect(e.description?.length ?? 0).toBeLessThanOrEqual(LIMITS.description);
+        expect(e.fields?.length ?? 0).toBeLessThanOrEqual(LIMITS.fields);
+        for (const f of e.fields ?? []) expect(f.value.length).toBeLessThanOrEqual(LIMITS.fieldValue);
+        expect(size(e)).toBeLessThanOrEqual(LIMITS.total);
+        if (r.caution) expect(e.fields?.some((f) => f.name === 'Caution')).toBe(true);
+        const rows = actionRows(r as Reply);
+        expect(rows.length).toBeLessThanOrEqual(5);
+        for (const row of rows)
+          for (const b of row.components) expect('custom_id' in b && b.custom_id.length <= 100).toBe(true);
+      }),
+      { numRuns: 150 },
+    );
   });
 });

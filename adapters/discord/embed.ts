@@ -38,9 +38,15 @@ export const LIMITS = {
 export const ACTION_PREFIX = 'tr:';
 const CUSTOM_ID_MAX = 100;
 
+/** At most `max` UTF-16 units (the stricter count), cut between code points so no emoji is split. */
 export function truncate(text: string, max: number): string {
-  const chars = [...text];
-  return chars.length <= max ? text : `${chars.slice(0, max - 1).join('')}…`;
+  if (text.length <= max) return text;
+  let kept = '';
+  for (const char of text) {
+    if (kept.length + char.length > max - 1) break;
+    kept += char;
+  }
+  return `${kept}…`;
 }
 
 /**
@@ -72,9 +78,15 @@ function tableBlock(reply: Reply, budget: number): string {
       : `\`\`\`\n${[header, rule, ...shown].join('\n').replaceAll('```', "'''")}\n\`\`\``;
     return `${body}${more > 0 ? `\n…and ${more} more` : ''}`;
   };
-  let shown = lines.length;
-  while (shown > 0 && wrap(lines.slice(0, shown), lines.length - shown).length > budget) shown--;
-  const block = wrap(lines.slice(0, shown), lines.length - shown);
+  const fits = (n: number) => wrap(lines.slice(0, n), lines.length - n).length <= budget;
+  // The most rows that fit: a binary search, since a long table would take one wrap per row otherwise.
+  let [low, high] = [0, lines.length];
+  while (low < high) {
+    const mid = Math.ceil((low + high) / 2);
+    if (fits(mid)) low = mid;
+    else high = mid - 1;
+  }
+  const block = wrap(lines.slice(0, low), lines.length - low);
   return block.length <= budget ? block : '';
 }
 

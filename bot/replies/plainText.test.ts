@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { repliesToPlainText, tableToText, toPlainText } from './plainText.js';
 import type { Reply } from './reply.js';
@@ -74,13 +75,38 @@ describe('tableToText', () => {
     ]);
   });
 
-  it('copes with ragged rows and an empty table', () => {
-    expect(tableToText({ columns: ['A'], rows: [['1', 'extra'], []] })).toEqual([
+  it('copes with ragged rows, leaves out blank rows, and an empty table', () => {
+    expect(tableToText({ columns: ['A'], rows: [['1', 'extra'], [], [' ', '']] })).toEqual([
       'A',
       '-  -----',
       '1  extra',
-      '',
     ]);
     expect(tableToText({ columns: [], rows: [] })).toEqual(['', '']);
+  });
+});
+
+describe('toPlainText on any reply (property)', () => {
+  it('never throws, starts with the headline and keeps every table row on one line', () => {
+    const cell = fc.string({ maxLength: 30, unit: 'binary' });
+    fc.assert(
+      fc.property(
+        fc.string({ minLength: 1, maxLength: 80 }).filter((h) => h.trim() !== '' && !h.includes('\n')),
+        fc.array(fc.array(cell, { maxLength: 5 }), { maxLength: 20 }),
+        fc.array(fc.record({ label: cell, value: cell }), { maxLength: 8 }),
+        (headline, rows, facts) => {
+          const text = toPlainText({
+            kind: 'answer',
+            visibility: 'channel',
+            headline,
+            facts,
+            table: { columns: ['Tank', 'Runway'], rows },
+          });
+          expect(text.startsWith(headline.trimEnd())).toBe(true);
+          const tableLines = text.split('\n\n').at(-1)?.split('\n') ?? [];
+          expect(tableLines.length).toBe(rows.filter((r) => r.some((c) => c.trim() !== '')).length + 2);
+        },
+      ),
+      { numRuns: 150 },
+    );
   });
 });

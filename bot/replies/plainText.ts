@@ -21,7 +21,7 @@ function pad(text: string, size: number, right: boolean): string {
 
 /** Newlines inside a value would break the alignment: fold them into spaces. */
 function oneLine(text: string): string {
-  return text.replace(/\s*\r?\n\s*/g, ' ');
+  return text.replace(/\s*[\r\n\u2028\u2029]+\s*/g, ' ');
 }
 
 /** "Label:  value" lines with the values aligned in one column. */
@@ -32,24 +32,27 @@ export function factsToText(facts: Fact[]): string[] {
 
 /**
  * A table with aligned columns: a header, a rule, then rows. Columns whose cells all read as numbers are
- * right-aligned. Short rows are padded; cells past the header's count are kept under an empty header.
+ * right-aligned. Short rows are padded; cells past the header's count are kept under an empty header; blank
+ * rows are left out.
  */
 export function tableToText(table: Table): string[] {
-  const columnCount = Math.max(table.columns.length, ...table.rows.map((r) => r.length));
+  // A blank row would print as a blank line, which reads as the end of the table.
+  const rows = table.rows.filter((r) => r.some((c) => oneLine(c).trim() !== ''));
+  const columnCount = Math.max(table.columns.length, ...rows.map((r) => r.length));
   const cell = (row: string[], i: number) => oneLine(row[i] ?? '');
   const header = Array.from({ length: columnCount }, (_, i) => cell(table.columns, i));
-  const widths = header.map((h, i) => Math.max(width(h), ...table.rows.map((r) => width(cell(r, i)))));
+  const widths = header.map((h, i) => Math.max(width(h), ...rows.map((r) => width(cell(r, i)))));
   const numeric = header.map(
-    (_, i) => table.rows.length > 0 && table.rows.every((r) => cell(r, i) === '' || looksNumeric(cell(r, i))),
+    (_, i) => rows.length > 0 && rows.every((r) => cell(r, i) === '' || looksNumeric(cell(r, i))),
   );
   const line = (row: string[]) =>
     row
       .map((c, i) => pad(c, widths[i] ?? 0, numeric[i] ?? false))
       .join('  ')
       .trimEnd();
-  const rows = table.rows.map((r) => line(Array.from({ length: columnCount }, (_, i) => cell(r, i))));
+  const lines = rows.map((r) => line(Array.from({ length: columnCount }, (_, i) => cell(r, i))));
   const rule = widths.map((w) => '-'.repeat(w)).join('  ');
-  return [line(header), rule, ...rows];
+  return [line(header), rule, ...lines];
 }
 
 /** The whole reply as plain text, blocks separated by a blank line; never ends with a newline. */
