@@ -1,11 +1,49 @@
 // One head of a horizontal tank, partly filled to level h (metres from the bottom of the shell); volumes in m^3.
+
+import { piecewiseChebyshev } from './chebyshev.js';
 import { segmentAreaByChord } from './circle.js';
 import { type Head, headVolume } from './heads.js';
 import { gaussLegendre01 } from './numeric.js';
 
-const RULE = gaussLegendre01(20);
+const RULE = gaussLegendre01(32);
 
-/** Volume (m^3) of liquid in one head of a horizontal tank at level h (0 <= h <= 2R). */
+/**
+ * Level -> volume (m^3) of one head of a horizontal tank, ready for hot loops. Heads with a closed form use
+ * it; spherical and torispherical heads are integrated numerically once per tank, at Chebyshev points in
+ * theta (h = R (1 - cos theta), which makes the volume smooth up to the knuckle edge, where the pieces are
+ * graded), and then evaluated from that interpolant, which reproduces the integral to about 1e-15 of the head.
+ */
+export function horizontalHeadVolumeFn(head: Head): (h: number) => number {
+  const R = head.radius;
+  const hemisphere = head.type === 'spherical' && head.depth >= R * (1 - 1e-12);
+  if (hemisphere) return (h) => horizontalHeadVolume({ ...head, type: 'ellipsoidal' }, h);
+  if (head.type !== 'spherical' && head.type !== 'torispherical') return (h) => horizontalHeadVolume(head, h);
+  // Near theta = 0 a nearly hemispherical cap integrates less smoothly: grade toward that end too.
+  const breaks: number[] = head.type === 'spherical' ? [0] : [];
+  if (head.type === 'torispherical') {
+    // The liquid line touching the circle where the dish meets the knuckle (radius r1 about the axis).
+    const r1 = ((R - head.knuckleRadius) * head.dishRadius) / (head.dishRadius - head.knuckleRadius);
+    breaks.push(Math.acos(Math.min(1, r1 / R)));
+  }
+  const belowAxis = piecewiseChebyshev(
+    (theta) => revolvedHeadBelowAxis(head, R * Math.cos(theta)),
+    0,
+    Math.PI / 2,
+    breaks,
+    16,
+    11,
+    12,
+  );
+  const full = headVolume(head);
+  const thetaOf = (h: number) => 2 * Math.asin(Math.sqrt(h / (2 * R)));
+  return (h) => {
+    if (h <= 0) return 0;
+    if (h >= 2 * R) return full;
+    return h <= R ? Math.max(0, belowAxis(thetaOf(h))) : full - Math.max(0, belowAxis(thetaOf(2 * R - h)));
+  };
+}
+
+/** Volume (m^3) of liquid in one head of a horizontal tank at level h (0 <= h <= 2R), evaluated directly. */
 export function horizontalHeadVolume(head: Head, h: number): number {
   const R = head.radius;
   const a = head.depth;

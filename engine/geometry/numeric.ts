@@ -44,12 +44,20 @@ export function xMinusSin(x: number): number {
  * Root of an increasing function f on [lo, hi] with f(lo) <= 0 <= f(hi): Brent's method (R. P. Brent,
  * "Algorithms for Minimization without Derivatives", 1973, ch. 4): inverse quadratic interpolation
  * safeguarded by bisection, so it never leaves the bracket. Stops when the bracket is below xtol.
+ * f(lo) and f(hi) may be passed in when the caller already knows them.
  */
-export function brentRoot(f: (x: number) => number, lo: number, hi: number, xtol: number): number {
+export function brentRoot(
+  f: (x: number) => number,
+  lo: number,
+  hi: number,
+  xtol: number,
+  fLo = f(lo),
+  fHi = f(hi),
+): number {
   let a = lo;
   let b = hi;
-  let fa = f(a);
-  let fb = f(b);
+  let fa = fLo;
+  let fb = fHi;
   if (fa === 0) return a;
   if (fb === 0) return b;
   if (fa * fb > 0) return Math.abs(fa) < Math.abs(fb) ? a : b;

@@ -2,7 +2,7 @@
 import { toLitres, toMetres } from '../units/index.js';
 import { circularSegmentArea, sphericalCapVolume } from './circle.js';
 import { type Head, headVolume, headVolumeFromApex, resolveHead } from './heads.js';
-import { horizontalHeadVolume } from './heads-horizontal.js';
+import { horizontalHeadVolumeFn } from './heads-horizontal.js';
 import type { TankSpec } from './spec.js';
 
 export interface ShapeModel {
@@ -30,13 +30,14 @@ export function shapeModel(spec: TankSpec): ShapeModel {
     case 'horizontal-cylinder': {
       const R = (spec.diameter * toM) / 2;
       const L = spec.length * toM;
-      const [a, b] = [resolveHead(spec.heads?.[0], R, toM), resolveHead(spec.heads?.[1], R, toM)];
-      return {
-        fullHeight: 2 * R,
-        volumeM3: (h) =>
-          L * circularSegmentArea(R, h) + horizontalHeadVolume(a, h) + horizontalHeadVolume(b, h),
-        joins: [R],
-      };
+      const [first, second] = [spec.heads?.[0] ?? null, spec.heads?.[1] ?? null];
+      const a = horizontalHeadVolumeFn(resolveHead(first, R, toM));
+      // Two identical ends (the usual case) share one prepared head.
+      const same = JSON.stringify(first) === JSON.stringify(second);
+      if (same)
+        return { fullHeight: 2 * R, volumeM3: (h) => L * circularSegmentArea(R, h) + 2 * a(h), joins: [R] };
+      const b = horizontalHeadVolumeFn(resolveHead(second, R, toM));
+      return { fullHeight: 2 * R, volumeM3: (h) => L * circularSegmentArea(R, h) + a(h) + b(h), joins: [R] };
     }
     case 'vertical-cylinder': {
       const R = (spec.diameter * toM) / 2;

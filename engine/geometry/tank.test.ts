@@ -114,13 +114,13 @@ describe('laws that hold for every tank (fast-check)', () => {
           const v = t.volumeAt(h);
           const back = t.levelAt(v);
           const noise = 1e-12 * t.capacity;
-          expect(Math.abs(t.volumeAt(back) - v)).toBeLessThanOrEqual(noise);
           // Ill-conditioned only where the volume 1e-9 H away is still within rounding noise (a flat stretch,
-          // the top of a horizontal tank): there the volume residual above is the whole law.
+          // the top of a horizontal tank): there many levels share the volume, and the volume must match.
           const distinguishable =
             Math.abs(t.volumeAt(Math.min(H, h + 1e-9 * H)) - v) > noise &&
             Math.abs(t.volumeAt(Math.max(0, h - 1e-9 * H)) - v) > noise;
           if (distinguishable) expect(Math.abs(back - h)).toBeLessThanOrEqual(1e-9 * H);
+          else expect(Math.abs(t.volumeAt(back) - v)).toBeLessThanOrEqual(noise);
         },
       ),
       { numRuns: 300 },

@@ -20,7 +20,7 @@ export interface Tank {
 }
 
 // Levels at which the volume is tabulated once per tank, so each inverse starts from a tight bracket.
-const BRACKETS = 64;
+const BRACKETS = 512;
 
 /** Validates a tank JSON value and builds its Tank; the error says what to fix. */
 export function buildTank(input: unknown): Result<Tank> {
@@ -43,7 +43,7 @@ function tankFromModel(spec: TankSpec, model: ShapeModel): Tank {
   const volumes = levels.map(volumeAt);
   const capacity = volumes[volumes.length - 1]!;
   const bottom = volumes[0]!;
-  const xtol = 1e-12 * H;
+  const xtol = 1e-10 * H;
   const levelAt = (v: number): number => {
     if (!(v > bottom)) return floor;
     if (v >= capacity) return H;
@@ -56,7 +56,14 @@ function tankFromModel(spec: TankSpec, model: ShapeModel): Tank {
       else hi = mid;
     }
     if (volumes[hi] === v) return levels[hi]!;
-    return brentRoot((h) => volumeAt(h) - v, levels[lo]!, levels[hi]!, xtol);
+    return brentRoot(
+      (h) => volumeAt(h) - v,
+      levels[lo]!,
+      levels[hi]!,
+      xtol,
+      volumes[lo]! - v,
+      volumes[hi]! - v,
+    );
   };
   return { spec, fullHeight: H, capacity, lowestLevel: floor, volumeAt, levelAt };
 }
