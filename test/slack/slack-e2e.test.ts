@@ -150,6 +150,66 @@ describe('Slack, end to end over HTTP', () => {
     expect(store.tanks.list('slack:T0SETUP').map((t) => t.code)).toEqual(['GEN1']);
   });
 
+  it('applies the settings modal as set messages and answers a button tap like the typed message', async () => {
+    await say('T0SET', addHypo, 'C0SET');
+    const values = (fields: Record<string, string>) =>
+      Object.fromEntries(
+        Object.entries(fields).map(([k, v]) => [k, { value: { type: 'plain_text_input', value: v } }]),
+      );
+    const res = await h.interaction({
+      type: 'view_submission',
+      team: { id: 'T0SET', domain: 'kestrel' },
+      user: { id: 'U0ANA', name: 'ana', team_id: 'T0SET' },
+      api_app_id: 'A0TANK',
+      trigger_id: 'trig-settings',
+      view: {
+        id: 'V0SET',
+        team_id: 'T0SET',
+        type: 'modal',
+        callback_id: 'tankrunway:settings',
+        private_metadata: JSON.stringify({ channel: 'C0SET' }),
+        hash: 'h2',
+        state: { values: values({ tank: 'T4', threshold: '25%', 'time-zone': 'America/Chicago' }) },
+      },
+    });
+    expect(res.status).toBe(200);
+    const posts = await h.api.waitFor(() => {
+      const found = h.api.callsOf('chat.postMessage').filter((c) => c.params.channel === 'C0SET');
+      return found.length >= 2 && found;
+    });
+    expect(posts.map((p) => String(p.params.text).split('\n')[0])).toEqual([
+      expect.stringContaining('threshold 25'),
+      expect.stringContaining('America/Chicago'),
+    ]);
+    expect(store.teams.list().find((t) => t.id === 'slack:T0SET')?.timeZone).toBe('America/Chicago');
+
+    // A reading's confirmation carries an Undo button; tapping it sends `undo` as that person.
+    const logged = await say('T0SET', 'T4 50in', 'C0SET');
+    const buttons = (
+      logged.body.blocks as { type: string; elements?: { action_id: string; value: string }[] }[]
+    )
+      .filter((b) => b.type === 'actions')
+      .flatMap((b) => b.elements ?? []);
+    const undo = buttons.find((b) => b.value === 'undo');
+    expect(undo).toBeDefined();
+    expect(readingsOf('slack:T0SET')).toHaveLength(1);
+    await h.interaction({
+      type: 'block_actions',
+      team: { id: 'T0SET', domain: 'kestrel' },
+      user: { id: 'U0ANA', name: 'ana', team_id: 'T0SET' },
+      channel: { id: 'C0SET', name: 'hypo' },
+      trigger_id: 'trig-undo',
+      response_url: h.api.responseUrl('undo-1'),
+      actions: [
+        { type: 'button', action_id: undo?.action_id, block_id: 'b', value: undo?.value, action_ts: '2' },
+      ],
+    });
+    await h.api.waitFor(() => h.api.responses.find((r) => r.id === 'undo-1'));
+    expect(
+      store.tanks.list('slack:T0SET').flatMap((t) => store.readings.forTank('slack:T0SET', t.id)),
+    ).toHaveLength(0);
+  });
+
   it('stores a redelivered event once (same event_id, and the same message under another event)', async () => {
     await say('T0RETRY', addHypo);
     const event = mention('T0RETRY', 'C0RETRY', '1764662400.000300', 'T4 58in');
