@@ -39,10 +39,13 @@ const {
   RELEARN_WIDEN,
 } = tuning;
 
+/** Bumped whenever the state's shape or meaning changes (2: recent readings kept for refits). */
+export const RATE_STATE_VERSION = 2;
+
 export function initialState(options: RateOptions = {}): RateEstimatorState {
   const capacity = options.capacity !== undefined && options.capacity > 0 ? options.capacity : null;
   return {
-    version: 1,
+    version: RATE_STATE_VERSION,
     capacity,
     filling: options.filling === true,
     count: 0,

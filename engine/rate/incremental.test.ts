@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import {
   analyzeSeries,
   createRateEstimator,
+  isRateEstimatorState,
   type RateEstimatorState,
   restoreRateEstimator,
 } from './index.js';
@@ -138,3 +139,18 @@ function createRateEstimatorAfter(
   feed(estimator, readings, []);
   return estimator;
 }
+
+describe('stored states', () => {
+  it('accepts its own state and refuses an old or damaged one', () => {
+    const estimator = createRateEstimator({ capacity: 1000 });
+    estimator.addReading(0, 900);
+    estimator.addReading(HOUR, 899);
+    const state = JSON.parse(JSON.stringify(estimator.toJSON())) as RateEstimatorState;
+    expect(isRateEstimatorState(state)).toBe(true);
+    expect(isRateEstimatorState({ ...state, version: 1 })).toBe(false);
+    expect(isRateEstimatorState({ ...state, p11: null })).toBe(false);
+    expect(isRateEstimatorState({ ...state, recentTimes: undefined })).toBe(false);
+    expect(isRateEstimatorState('{}')).toBe(false);
+    expect(() => restoreRateEstimator({ ...state, version: 1 })).toThrow(/rebuild it from the readings/);
+  });
+});

@@ -1,5 +1,6 @@
 // The consumption-rate estimator: public entry points (see estimator.ts for the method and its sources).
 import { Estimator, initialState } from './estimator.js';
+import { isRateEstimatorState } from './state-check.js';
 import type {
   RateChange,
   RateEstimator,
@@ -27,8 +28,18 @@ export function createRateEstimator(options?: RateOptions): RateEstimator {
   return new Estimator(initialState(options));
 }
 
-/** Resumes an estimator from `toJSON()` output: the same future readings give the same points. */
+export { RATE_STATE_VERSION } from './estimator.js';
+export { isRateEstimatorState } from './state-check.js';
+
+/**
+ * Resumes an estimator from `toJSON()` output: the same future readings give the same points. A state that
+ * fails `isRateEstimatorState` (another version, damaged) is refused with an Error: check stored states
+ * first and rebuild from the readings when the check fails.
+ */
 export function restoreRateEstimator(state: RateEstimatorState): RateEstimator {
+  if (!isRateEstimatorState(state)) {
+    throw new Error('restoreRateEstimator: not a current estimator state; rebuild it from the readings');
+  }
   return new Estimator(structuredClone(state));
 }
 

@@ -63,7 +63,8 @@ export interface TimedVolume {
 
 /** Everything the estimator knows, as plain JSON: restoring it resumes exactly. */
 export interface RateEstimatorState {
-  version: 1;
+  /** RATE_STATE_VERSION when written; a state of another version must be rebuilt from the readings. */
+  version: number;
   capacity: number | null;
   filling: boolean;
   /** Readings seen (valid ones). */

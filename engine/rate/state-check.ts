@@ -1,0 +1,42 @@
+// Checks a stored estimator state before it is resumed: a cache written by another version, or damaged,
+// must be rebuilt from the readings rather than resumed into wrong answers or a crash.
+import { RATE_STATE_VERSION } from './estimator.js';
+import type { RateEstimatorState } from './types.js';
+
+const NUMBERS = [
+  'count',
+  'v',
+  'r',
+  'p00',
+  'p01',
+  'p11',
+  'innovationVar',
+  'dtMean',
+  'scale',
+  'cusumPos',
+  'cusumNeg',
+  'cusumPosStart',
+  'cusumNegStart',
+  'basisStart',
+  'basisCount',
+] as const;
+const ARRAYS = [
+  'recentTimes',
+  'recentVolumes',
+  'pending',
+  'loggedPending',
+  'events',
+  'changes',
+  'suspects',
+] as const;
+
+export function isRateEstimatorState(value: unknown): value is RateEstimatorState {
+  if (typeof value !== 'object' || value === null) return false;
+  const s = value as Record<string, unknown>;
+  if (s.version !== RATE_STATE_VERSION || typeof s.filling !== 'boolean') return false;
+  if (!(s.capacity === null || (typeof s.capacity === 'number' && s.capacity > 0))) return false;
+  if (!(s.lastTime === null || Number.isFinite(s.lastTime))) return false;
+  if (!NUMBERS.every((k) => typeof s[k] === 'number' && Number.isFinite(s[k]))) return false;
+  if (!ARRAYS.every((k) => Array.isArray(s[k]))) return false;
+  return (s.recentTimes as unknown[]).length === (s.recentVolumes as unknown[]).length;
+}
