@@ -3,7 +3,8 @@
 import { fail, ok, type Result } from '../result.js';
 import { arrivalDay, endOfDay, latestOrderFor, startOfDay } from './deliveryCalendar.js';
 import { orderQuantity, type QuantityIssue } from './orderQuantity.js';
-import { daysToThreshold, reorderPoint } from './reorderPoint.js';
+import { daysToThreshold, reorderPoint, useSpread } from './reorderPoint.js';
+import { serviceFactor } from './serviceFactor.js';
 import { parseRefillSettings, type RefillSettings, type RefillSettingsInput } from './settings.js';
 
 const DAY_MS = 86_400_000;
@@ -66,6 +67,8 @@ export interface RefillPlan {
 export interface PlanSizing {
   /** The moment `expectedVolumeOnArrival` refers to. */
   arrivalAt: number;
+  /** The volume the quantity was sized on then: the high side of the forecast (a pick-up: the low side). */
+  sizedOnVolume: number;
   /** Litres per day, positive while emptying. */
   ratePerDay: number;
   minimumOrder: number;
@@ -111,7 +114,12 @@ export function planRefill(input: RefillInput): Result<RefillPlan> {
   // The start of the delivery day is when an emptying tank holds the most (and a filling one the least):
   // sizing the order there keeps a morning delivery below the safe fill level.
   const expected = clamp(volume - (input.rate * (arrival - input.lastReadingAt)) / DAY_MS, 0, capacity);
-  const sized = quantityFor(filling, expected, safeFillVolume, settings);
+  // Sized against the high side of the forecast (the low side for a pick-up), at the same service level:
+  // a tank that used less than expected must still not go above its safe fill level.
+  const margin =
+    serviceFactor(settings.serviceLevel) * useSpread(uncertainty, (arrival - input.lastReadingAt) / DAY_MS);
+  const sizedOn = clamp(filling ? expected - margin : expected + margin, 0, capacity);
+  const sized = quantityFor(filling, sizedOn, safeFillVolume, settings);
 
   const rp = reorderPoint({
     demandPerDay: Math.max(0, flow),
@@ -137,6 +145,7 @@ export function planRefill(input: RefillInput): Result<RefillPlan> {
     safeFillVolume,
     sizing: {
       arrivalAt: arrival,
+      sizedOnVolume: sizedOn,
       ratePerDay: input.rate,
       minimumOrder: settings.minimumOrder,
       orderIncrement: settings.orderIncrement,
@@ -193,10 +202,10 @@ function thresholdVolume(
   return ok(Math.max(0, safeFill - use));
 }
 
-function quantityFor(filling: boolean, expected: number, safeFill: number | null, settings: RefillSettings) {
-  if (filling) return orderQuantity(expected, settings.minimumOrder, settings.orderIncrement);
+function quantityFor(filling: boolean, volume: number, safeFill: number | null, settings: RefillSettings) {
+  if (filling) return orderQuantity(volume, settings.minimumOrder, settings.orderIncrement);
   if (safeFill === null) return { quantity: null, issue: 'capacity-unknown' as const };
-  return orderQuantity(safeFill - expected, settings.minimumOrder, settings.orderIncrement);
+  return orderQuantity(safeFill - volume, settings.minimumOrder, settings.orderIncrement);
 }
 
 function clamp(x: number, low: number, high: number | undefined): number {
