@@ -100,7 +100,7 @@ export function createDiscordAdapter(options: DiscordAdapterOptions): DiscordAda
           body: {
             embeds: m.embeds,
             components: m.components,
-            attachments: m.files.map((f, id) => ({ id, filename: f.name })),
+            attachments: m.files.map((f, id) => ({ id, filename: f.name, description: f.description })),
             nonce: nonceFor(meta?.key, i),
             enforce_nonce: true,
           },

@@ -98,6 +98,57 @@ describe('renderChartPng', () => {
   });
 });
 
+describe('odd charts', () => {
+  it.each([
+    ['one reading', { history: [{ time: start, volume: 300 }], forecast: [], deliveries: [] }],
+    [
+      'forecast only',
+      { history: [], forecast: [{ time: start, volume: 300, low: 280, high: 320 }], deliveries: [] },
+    ],
+    [
+      'a delivery with no readings',
+      { history: [], forecast: [], deliveries: [{ time: start, volume: 150 }] },
+    ],
+    [
+      'huge volumes',
+      {
+        history: [
+          { time: start, volume: 4e9 },
+          { time: start + day, volume: 3.9e9 },
+        ],
+        forecast: [],
+        deliveries: [],
+      },
+    ],
+    [
+      'negative volumes',
+      {
+        history: [
+          { time: start, volume: -5 },
+          { time: start + day, volume: 10 },
+        ],
+        forecast: [],
+        deliveries: [],
+      },
+    ],
+    [
+      'readings out of order',
+      {
+        history: [
+          { time: start + day, volume: 10 },
+          { time: start, volume: 20 },
+        ],
+        forecast: [],
+        deliveries: [],
+      },
+    ],
+  ])('renders %s', async (_name, parts) => {
+    const chart: LevelChart = { ...demoChart(), ...parts } as LevelChart;
+    const { width } = pngSize(await renderChartPng(chart));
+    expect(width).toBeGreaterThan(500);
+  });
+});
+
 describe('toWallClock', () => {
   it('shifts an instant by the zone offset of that instant, across DST', () => {
     // Offsets from the IANA tz database (via luxon): Chicago is UTC-5 in summer, UTC-6 in winter.

@@ -120,6 +120,10 @@ describe('Discord adapter against local gateway and REST stand-ins', () => {
     expect(embed?.image?.url).toBe('attachment://level-chart-1.png');
     const png = edit?.files[0];
     expect(png?.name).toBe('level-chart-1.png');
+    const attachments = (
+      edit?.body as { attachments?: { filename: string; description?: string }[] } | undefined
+    )?.attachments;
+    expect(attachments?.[0]?.description).toMatch(/^Level chart of T4/);
     // PNG signature (W3C PNG specification, section 5.2).
     expect([...(png?.bytes.subarray(0, 8) ?? [])]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
   });
