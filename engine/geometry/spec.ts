@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { fail, ok, type Result } from '../result.js';
-import { LENGTH_UNITS, type LengthUnit, VOLUME_UNITS, type VolumeUnit } from '../units/index.js';
+import { LENGTH_UNITS, type LengthUnit, parseUnit, VOLUME_UNITS, type VolumeUnit } from '../units/index.js';
 import { torisphericalDepth } from './heads.js';
 
 /** The tank JSON of the CLI contract (section 1); every length in `units.length`. */
@@ -42,7 +42,16 @@ const headSchema = z.strictObject({
   k: positive.optional(),
   inward: z.boolean().optional(),
 });
-const unitsSchema = z.strictObject({ length: z.enum(LENGTH_UNITS), volume: z.enum(VOLUME_UNITS) });
+/** "litres", "liters", "l", "inches"... become their unit id, so a tank file may use the words people write. */
+const unitWord = (kind: 'length' | 'volume') => (word: unknown) => {
+  if (typeof word !== 'string') return word;
+  const parsed = parseUnit(word);
+  return parsed.ok && parsed.value.kind === kind ? parsed.value.unit : word;
+};
+const unitsSchema = z.strictObject({
+  length: z.preprocess(unitWord('length'), z.enum(LENGTH_UNITS)),
+  volume: z.preprocess(unitWord('volume'), z.enum(VOLUME_UNITS)),
+});
 const base = { units: unitsSchema };
 
 const cylinderSchema = z.strictObject({

@@ -152,6 +152,18 @@ describe('checked conversions and friendly errors', () => {
     expect(full.ok && full.value).toBeCloseTo(60 * 0.0254, 12);
   });
 
+  it('treats a level or volume a rounding hair beyond full as full', () => {
+    const level = volumeAtLevel(cyl, cyl.fullHeight * (1 + 1e-10));
+    expect(level.ok && level.value).toBe(cyl.capacity);
+    const volume = levelAtVolume(cyl, cyl.capacity * (1 + 5e-8));
+    expect(volume.ok && volume.value).toBe(cyl.fullHeight);
+  });
+
+  it('accepts the unit words people write in a tank file', () => {
+    const r = buildTank({ units: { length: 'inches', volume: 'gallons' }, shape: 'sphere', diameter: 10 });
+    expect(r.ok && r.value.spec.units).toEqual({ length: 'in', volume: 'gal' });
+  });
+
   it.each([
     [{ units: m, shape: 'sphere', diameter: -2 }, /diameter must be a positive number of m/],
     [{ units: m, shape: 'sphere' }, /diameter must be a positive number of m/],

@@ -76,7 +76,8 @@ export function volumeAtLevel(tank: Tank, levelMetres: number): Result<number> {
   const unit = tank.spec.units.length;
   const H = tank.fullHeight;
   const floor = tank.lowestLevel;
-  const slack = 1e-12 * H;
+  // A level a hair outside (unit conversions, a full height computed elsewhere) is the end itself.
+  const slack = 1e-9 * H;
   if (levelMetres < floor - slack || levelMetres > H + slack) {
     const shown = fmt(fromMetres(levelMetres, unit));
     const range = `between ${fmt(fromMetres(floor, unit))} and ${fmt(fromMetres(H, unit))} ${unit}`;
@@ -92,7 +93,9 @@ export function levelAtVolume(tank: Tank, volumeLitres: number): Result<number> 
   const unit = tank.spec.units.volume;
   const cap = tank.capacity;
   const bottom = tank.volumeAt(tank.lowestLevel);
-  const slack = 1e-12 * cap;
+  // A capacity computed elsewhere agrees with ours to about 1e-7 (the reference volumes' own accuracy):
+  // a volume that much above it is full, not an error.
+  const slack = 1e-7 * cap;
   if (volumeLitres < bottom - slack || volumeLitres > cap + slack) {
     const shown = fmt(fromLitres(volumeLitres, unit));
     const range = `${fmt(fromLitres(bottom, unit))} to ${fmt(fromLitres(cap, unit))} ${unit}`;
