@@ -49,38 +49,42 @@ export interface Policy {
   decide(view: PolicyView): PolicyOrder | null;
 }
 
-/** The planner: acts on the day its order-by falls (or at once when late), with its quantity. */
-export const plannerPolicy: Policy = {
-  name: 'planner (95% service level)',
-  decide({ now, point, capacity, filling, settings }) {
-    const plan = planRefill({
-      now,
-      volume: point.volume,
-      lastReadingAt: point.time,
-      rate: point.rate,
-      rateSigma: point.rateSigma,
-      capacity,
-      filling,
-      settings,
-    });
-    if (!plan.ok || plan.value.orderBy === null || plan.value.orderBy >= now + DAY_MS) return null;
-    const quantity = plan.value.quantity ?? 0;
-    return quantity > 0 ? { orderAt: Math.max(now, plan.value.orderBy), quantity } : null;
-  },
-};
+/** The planner at a service level: acts on the day its order-by falls (or at once when late). */
+export function plannerPolicy(serviceLevel = 0.95): Policy {
+  return {
+    name: `planner, ${Math.round(serviceLevel * 1000) / 10}% service level`,
+    decide({ now, point, capacity, filling, settings }) {
+      const plan = planRefill({
+        now,
+        volume: point.volume,
+        lastReadingAt: point.time,
+        rate: point.rate,
+        rateSigma: point.rateSigma,
+        capacity,
+        filling,
+        settings: { ...settings, serviceLevel },
+      });
+      if (!plan.ok || plan.value.orderBy === null || plan.value.orderBy >= now + DAY_MS) return null;
+      const quantity = plan.value.quantity ?? 0;
+      return quantity > 0 ? { orderAt: Math.max(now, plan.value.orderBy), quantity } : null;
+    },
+  };
+}
 
-/** The fixed rule: order when the tank is below 30% (book a pick-up above 70%), filling to the safe level
- * as it stands now (the pick-up takes what is there). */
-export const fixedPolicy: Policy = {
-  name: 'fixed: order below 30%',
-  decide({ now, point, capacity, filling, settings }) {
-    const level = point.volume / capacity;
-    if (filling ? level <= 0.7 : level >= 0.3) return null;
-    const room = filling ? point.volume : (capacity * settings.safeFillPercent) / 100 - point.volume;
-    const { quantity } = orderQuantity(room, settings.minimumOrder, settings.orderIncrement);
-    return quantity > 0 ? { orderAt: now, quantity } : null;
-  },
-};
+/** A fixed rule: order when the tank is below `level` (book a pick-up above 1 - level), filling to the safe
+ * level as it stands now (a pick-up takes what is there). */
+export function fixedPolicy(level = 0.3): Policy {
+  return {
+    name: `fixed: order below ${Math.round(level * 100)}%`,
+    decide({ now, point, capacity, filling, settings }) {
+      const fraction = point.volume / capacity;
+      if (filling ? fraction <= 1 - level : fraction >= level) return null;
+      const room = filling ? point.volume : (capacity * settings.safeFillPercent) / 100 - point.volume;
+      const { quantity } = orderQuantity(room, settings.minimumOrder, settings.orderIncrement);
+      return quantity > 0 ? { orderAt: now, quantity } : null;
+    },
+  };
+}
 
 export interface SimOutcome {
   scenario: string;
@@ -90,6 +94,9 @@ export interface SimOutcome {
   deliveries: number;
   /** Delivery cycles (from one arrival, or the start, to the next) in which the threshold was crossed. */
   breaches: number;
+  /** Breaches while an order placed at the first check after the last delivery was still on its way: with
+   * one order at a time and this lead time, no policy could have done better. */
+  breachesOrderedAtOnce: number;
   cycles: number;
   /** Cycles in which the tank ran dry (or, filling, reached its capacity). */
   dryOuts: number;
@@ -136,13 +143,15 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
     days: (end - start) / DAY_MS,
     deliveries: 0,
     breaches: 0,
+    breachesOrderedAtOnce: 0,
     cycles: 1,
     dryOuts: 0,
     levelsAtArrival: [],
     overfills: 0,
   };
   let volume = s.truth.volumeAt(start);
-  let pending: { arriveAt: number; quantity: number } | null = null;
+  let pending: { orderAt: number; arriveAt: number; quantity: number } | null = null;
+  let lastArrival = start;
   let breached = false;
   let dry = false;
   let next = 0; // next reading to feed
@@ -161,6 +170,7 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
       volume = Math.min(cap, volume);
       if (logDeliveries) estimator.addDelivery(t + HOUR_MS, pending.quantity);
       arrived = { at: t, quantity: s.filling ? -pending.quantity : pending.quantity };
+      lastArrival = t;
       pending = null;
       out.cycles++;
       breached = false;
@@ -169,6 +179,9 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
     if (!breached && (s.filling ? volume > threshold : volume < threshold)) {
       breached = true;
       out.breaches++;
+      if (pending && pending.orderAt <= Math.max(lastArrival, start + WARM_UP_DAYS * DAY_MS) + HOUR_MS) {
+        out.breachesOrderedAtOnce++;
+      }
     }
     if (!dry && (s.filling ? volume >= cap : volume <= 0)) {
       dry = true;
@@ -191,7 +204,7 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
         if (order) {
           const day = arrivalDay(order.orderAt, settings);
           const arriveAt = Math.max(startOfDay(day, 'UTC') + 10 * HOUR_MS, order.orderAt + HOUR_MS);
-          pending = { arriveAt, quantity: order.quantity };
+          pending = { orderAt: order.orderAt, arriveAt, quantity: order.quantity };
         }
       }
     }
