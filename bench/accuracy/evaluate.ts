@@ -27,7 +27,7 @@ export interface FamilyResult {
   /** Readings per second of the estimator over the whole family (batch). */
   throughput: number;
   byMethod: Record<Method, FamilySummary>;
-  perScenario: { name: string; metrics: ScenarioMetrics }[];
+  perScenario: { name: string; intervalMs: number; metrics: ScenarioMetrics }[];
 }
 
 export function evaluate(suite: Scenario[]): FamilyResult[] {
@@ -45,7 +45,11 @@ export function evaluate(suite: Scenario[]): FamilyResult[] {
       const metrics = scenarios.map((s) => scenarioMetrics(s, runMethod(method, s)));
       byMethod[method] = summarise(metrics);
       if (method === 'estimator')
-        perScenario = scenarios.map((s, i) => ({ name: s.name, metrics: metrics[i]! }));
+        perScenario = scenarios.map((s, i) => ({
+          name: s.name,
+          intervalMs: s.intervalMs,
+          metrics: metrics[i]!,
+        }));
     }
     return { family, readings, throughput, byMethod, perScenario };
   });

@@ -4,7 +4,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { machineNote } from '../harness.js';
 import { evaluate, type FamilyResult, METHODS, runMethod } from './evaluate.js';
-import type { FamilySummary } from './metrics.js';
+import { type FamilySummary, median } from './metrics.js';
 import { lineChartPng, thin } from './plot.js';
 import { backtestRainwater } from './real.js';
 import type { Scenario } from './scenarios.js';
@@ -41,6 +41,23 @@ function familyTable(r: FamilyResult): string {
     return `| ${label} | ${fmt(e)} | ${fmt(a)} | ${fmt(b)} | ${isError ? ratio(e, a) : ''} | ${isError ? ratio(e, b) : ''} |`;
   });
   return [head, ...lines].join('\n');
+}
+
+/** Estimator rate error and adaptation lag per sampling interval (the lag goal is stated at hourly sampling). */
+function byInterval(r: FamilyResult): string {
+  const intervals = [...new Set(r.perScenario.map((p) => p.intervalMs))].sort((a, b) => a - b);
+  const rows = intervals.map((ms) => {
+    const group = r.perScenario.filter((p) => p.intervalMs === ms);
+    const lags = group.flatMap((p) => p.metrics.lags);
+    const errors = group.flatMap((p) => p.metrics.rateErrors);
+    const label = ms < DAY_MS ? `${(ms / 60_000).toFixed(0)} min` : `${(ms / DAY_MS).toFixed(1)} days`;
+    return `| ${label} | ${group.length} | ${pct(median(errors))} | ${lags.length} | ${num(median(lags), 1)} | ${lags.length ? num(Math.max(...lags), 1) : 'n/a'} |`;
+  });
+  return [
+    '| sampling | scenarios | rate error (median) | rate changes timed | lag median (h) | lag worst (h) |',
+    '|---|---|---|---|---|---|',
+    ...rows,
+  ].join('\n');
 }
 
 function hardBreakdown(r: FamilyResult): string {
@@ -127,6 +144,10 @@ for (const r of results) {
   md.push('');
   md.push(familyTable(r));
   md.push('');
+  if (r.family !== 'manual') {
+    md.push(byInterval(r));
+    md.push('');
+  }
   if (r.family === 'hard') {
     md.push(hardBreakdown(r));
     md.push('');
