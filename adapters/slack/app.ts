@@ -95,7 +95,7 @@ export function createSlackAdapter(options: SlackAdapterOptions): SlackAdapter {
     const info = await clients.forTeam(teamId).users.info({ user });
     return info.user?.tz;
   }, clock);
-  const outbox = createOutbox(clients, options.renderChart);
+  const outbox = createOutbox(clients, options.renderChart, app.logger);
   const takeTurn = createTurns();
   const bot: Bot = { handle: (request) => takeTurn(() => options.bot.handle(request)) };
   const ctx: SlackContext = { bot, clients, zones, outbox, logger: app.logger, clock };

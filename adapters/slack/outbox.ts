@@ -4,6 +4,7 @@
  * after its message. `respond` (the interaction's response_url) is used when there is one: it works in
  * channels the app was not invited to.
  */
+import type { Logger, webApi } from '@slack/bolt';
 import type { LevelChart, Reply } from '../../bot/replies/reply.js';
 import { toSlackMessage } from './blocks.js';
 import type { TeamClients } from './team-clients.js';
@@ -12,7 +13,7 @@ export type RespondFn = (message: {
   response_type: 'in_channel' | 'ephemeral';
   replace_original: false;
   text: string;
-  blocks: ReturnType<typeof toSlackMessage>['blocks'];
+  blocks?: ReturnType<typeof toSlackMessage>['blocks'];
 }) => Promise<unknown>;
 
 export interface Destination {
@@ -32,7 +33,19 @@ export interface Outbox {
 
 export type ChartRenderer = (chart: LevelChart) => Promise<Buffer>;
 
-export function createOutbox(clients: TeamClients, renderChart: ChartRenderer): Outbox {
+const chartMissing =
+  'The chart could not be posted in this channel. Invite the app to the channel (`/invite @tankrunway`) to get charts here.';
+
+export function createOutbox(clients: TeamClients, renderChart: ChartRenderer, logger: Logger): Outbox {
+  async function tellSender(to: Destination, client: webApi.WebClient, text: string): Promise<void> {
+    try {
+      if (to.respond) await to.respond({ response_type: 'ephemeral', replace_original: false, text });
+      else if (to.user) await client.chat.postEphemeral({ channel: to.channel, user: to.user, text });
+    } catch (error) {
+      logger.warn(`could not tell the sender: ${String(error)}`);
+    }
+  }
+
   async function uploadChart(to: Destination, chart: LevelChart): Promise<void> {
     const png = await renderChart(chart);
     const file = {
@@ -68,7 +81,15 @@ export function createOutbox(clients: TeamClients, renderChart: ChartRenderer): 
       });
     }
     // A file can only be shared with the whole channel, so a sender-only reply keeps its chart to itself.
-    if (reply.chart && toChannel) await uploadChart(to, reply.chart);
+    if (reply.chart && toChannel) {
+      try {
+        await uploadChart(to, reply.chart);
+      } catch (error) {
+        // The numbers are already posted; a chart is a bonus. Usually the app is not in the channel.
+        logger.warn(`chart upload to ${to.channel} failed: ${String(error)}`);
+        await tellSender(to, client, chartMissing);
+      }
+    }
   }
 
   return {

@@ -86,6 +86,17 @@ describe('Slack, end to end over HTTP', () => {
     expect(png?.subarray(0, 8)).toEqual(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a])); // PNG signature
   });
 
+  it('still answers when the chart cannot be shared in the channel, and tells the sender why', async () => {
+    h.api.failWith('files.completeUploadExternal', 'not_in_channel', 1, (p) => p.channel_id === 'C0ELSE');
+    const answer = await say('T0ASK', 'T4?', 'C0ELSE');
+    expect(answer.body.response_type).toBe('in_channel');
+    // Both go to the command's response_url: the answer for the channel, then the note for the sender.
+    const note = await h.api.waitFor(() =>
+      h.api.responses.find((r) => r.id === answer.id && r.body.response_type === 'ephemeral'),
+    );
+    expect(String(note.body.text)).toContain('/invite');
+  });
+
   it('keeps a mistake between the bot and the sender (ephemeral)', async () => {
     await h.event(mention('T0ASK', 'C0ASK', '1764662400.000200', 'T44 3in'), {
       team: 'T0ASK',

@@ -39,11 +39,25 @@ export interface WebApiStandIn {
     count?: number,
     when?: (p: Record<string, unknown>) => boolean,
   ): void;
+  /** The next `count` calls of `method` (optionally only matching ones) answer `{ ok: false, error }`. */
+  failWith(
+    method: string,
+    error: string,
+    count?: number,
+    when?: (p: Record<string, unknown>) => boolean,
+  ): void;
   /** Where apps.connections.open sends Socket Mode clients. */
   socketUrl?: string;
   callsOf(method: string): RecordedCall[];
   waitFor<T>(probe: () => T | undefined | false, timeoutMs?: number): Promise<T>;
   close(): Promise<void>;
+}
+
+interface FailureRule {
+  method: string;
+  error: string;
+  left: number;
+  when?: (p: Record<string, unknown>) => boolean;
 }
 
 interface RateLimitRule {
@@ -76,6 +90,7 @@ export async function startWebApiStandIn(): Promise<WebApiStandIn> {
   const uploads = new Map<string, Buffer>();
   const users = new Map<string, UserProfile>();
   const rules: RateLimitRule[] = [];
+  const failures: FailureRule[] = [];
   let seq = 0;
   let base = '';
   const self: Partial<WebApiStandIn> = {};
@@ -155,7 +170,10 @@ export async function startWebApiStandIn(): Promise<WebApiStandIn> {
       res.end(JSON.stringify({ ok: false, error: 'ratelimited' }));
       return;
     }
-    res.writeHead(200, { 'content-type': 'application/json' }).end(JSON.stringify(answer(method, params)));
+    const failure = failures.find((f) => f.method === method && f.left > 0 && (!f.when || f.when(params)));
+    if (failure) failure.left -= 1;
+    const body = failure ? { ok: false, error: failure.error } : answer(method, params);
+    res.writeHead(200, { 'content-type': 'application/json' }).end(JSON.stringify(body));
   });
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -169,6 +187,9 @@ export async function startWebApiStandIn(): Promise<WebApiStandIn> {
     users,
     rateLimit(method: string, retryAfter: number, count = 1, when?: (p: Record<string, unknown>) => boolean) {
       rules.push({ method, retryAfter, left: count, when });
+    },
+    failWith(method: string, error: string, count = 1, when?: (p: Record<string, unknown>) => boolean) {
+      failures.push({ method, error, left: count, when });
     },
     callsOf: (method: string) => calls.filter((c) => c.method === method),
     async waitFor<T>(probe: () => T | undefined | false, timeoutMs = 5000): Promise<T> {
