@@ -1,5 +1,7 @@
 import type { BenchSection } from '../harness.js';
 import { chartsSection } from './charts.js';
+import { digestSection } from './digest.js';
+import { discordLoadSection } from './discord-load.js';
 import { geometrySection } from './geometry.js';
 import { languageSection } from './language.js';
 import { rateSection } from './rate.js';
@@ -14,4 +16,5 @@ export const sections: BenchSection[] = [
   geometrySection,
   rateSection,
   replyLatencySection,
+  digestSection,
 ];

@@ -28,7 +28,12 @@ export function byRunway(statuses: readonly TankStatus[]): TankStatus[] {
 }
 
 /** The runway table's row for one tank: tank, site, level, runway (with its range), what to do. */
-export function runwayRow(status: TankStatus, now: number, zone: string): string[] {
+export function runwayRow(
+  status: TankStatus,
+  now: number,
+  zone: string,
+  endOfDay = endOfLocalDay(now, zone),
+): string[] {
   const level = status.latest ? formatPercent(status.latest.fraction) : '-';
   const r = status.runway;
   const runway =
@@ -41,14 +46,14 @@ export function runwayRow(status: TankStatus, now: number, zone: string): string
             ...(r.low !== null ? { low: r.low } : {}),
             ...(r.high !== null ? { high: r.high } : {}),
           });
-  return [tankLabel(status), status.tank.site ?? '', level, runway, actionWord(status, now, zone)];
+  return [tankLabel(status), status.tank.site ?? '', level, runway, actionWord(status, now, zone, endOfDay)];
 }
 
-function actionWord(status: TankStatus, now: number, zone: string): string {
+function actionWord(status: TankStatus, now: number, zone: string, endOfDay: number): string {
   const plan = status.refill;
   if (!plan || plan.verdict === 'no-order-needed') return '';
   const verb = plan.mode === 'pick-up' ? 'pick-up' : 'order';
-  if (plan.verdict === 'order-now' || (plan.orderBy !== null && plan.orderBy <= endOfLocalDay(now, zone))) {
+  if (plan.verdict === 'order-now' || (plan.orderBy !== null && plan.orderBy <= endOfDay)) {
     return `${verb} today`;
   }
   return plan.orderBy === null ? '' : `${verb} by ${formatDate(plan.orderBy, zone, now)}`;

@@ -16,6 +16,7 @@ import {
   deliveryLines,
   dropLines,
   dueToday,
+  endOfLocalDay,
   orderLines,
   overdueLines,
   problemLines,
@@ -24,6 +25,8 @@ import {
 
 /** The plain-text budget: under Discord's 2,000-character message with room for a mention or a link. */
 export const DIGEST_MAX_CHARS = 1_900;
+/** The runway table never shows more rows than this: the tanks nearest their threshold. */
+const MOST_ROWS = 15;
 const DAY = 86_400_000;
 
 export interface DigestInput {
@@ -37,7 +40,10 @@ export interface DigestInput {
 }
 
 interface Sections {
-  table: string[][];
+  /** Tank statuses sorted by runway; only the rows shown are formatted (formatting is the costly part). */
+  table: readonly TankStatus[];
+  /** The first rows, formatted once and reused while the fit shrinks the table. */
+  firstRows: string[][];
   orders: string[];
   drops: string[];
   problems: string[];
@@ -56,6 +62,7 @@ function build(
   input: DigestInput,
   s: Sections,
   caution: string | undefined,
+  endOfDay: number,
   rows: number,
   items: number,
 ): Reply {
@@ -82,13 +89,14 @@ function build(
   add('Check', s.problems);
   add('Overdue readings', s.overdue);
   add('Deliveries since the last digest', s.deliveries);
+  const shown = s.table
+    .slice(0, rows)
+    .map((status, i) => s.firstRows[i] ?? runwayRow(status, input.now, input.timeZone, endOfDay));
   const table = s.table.length
     ? {
         columns: ['Tank', 'Site', 'Level', 'Runway', 'Action'],
         rows:
-          s.table.length > rows
-            ? [...s.table.slice(0, rows), [`and ${s.table.length - rows} more`, '', '', '', '']]
-            : s.table,
+          s.table.length > rows ? [...shown, [`and ${s.table.length - rows} more`, '', '', '', '']] : shown,
       }
     : undefined;
   return {
@@ -116,9 +124,12 @@ function cautionsFor(input: DigestInput, due: readonly TankStatus[]): string | u
 
 export function composeDigest(input: DigestInput): Reply {
   const zone = input.timeZone;
+  const endOfDay = endOfLocalDay(input.now, zone);
   const due = dueToday(input.statuses, input.now, zone);
+  const sorted = byRunway(input.statuses);
   const sections: Sections = {
-    table: byRunway(input.statuses).map((s) => runwayRow(s, input.now, zone)),
+    table: sorted,
+    firstRows: sorted.slice(0, MOST_ROWS).map((status) => runwayRow(status, input.now, zone, endOfDay)),
     orders: orderLines(due),
     drops: dropLines(input.statuses, input.since, input.now, zone),
     problems: problemLines(input.statuses),
@@ -128,16 +139,16 @@ export function composeDigest(input: DigestInput): Reply {
   const caution = cautionsFor(input, due);
   // Shrink the lists step by step until the plain text fits; the last step always fits in practice.
   const steps: [number, number][] = [
-    [15, 6],
+    [MOST_ROWS, 6],
     [10, 4],
     [6, 3],
     [3, 2],
     [1, 1],
     [0, 0],
   ];
-  let reply = build(input, sections, caution, 15, 6);
+  let reply = build(input, sections, caution, endOfDay, MOST_ROWS, 6);
   for (const [rows, items] of steps) {
-    reply = build(input, sections, caution, rows, items);
+    reply = build(input, sections, caution, endOfDay, rows, items);
     if (toPlainText(reply).length <= DIGEST_MAX_CHARS) return reply;
   }
   return reply;
