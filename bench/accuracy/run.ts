@@ -7,6 +7,7 @@ import { evaluate, type FamilyResult, METHODS, runMethod } from './evaluate.js';
 import { type FamilySummary, median } from './metrics.js';
 import { lineChartPng, thin } from './plot.js';
 import { backtestRainwater } from './real.js';
+import { refillSimMarkdown, runRefillSimulation } from './refill-sim-report.js';
 import type { Scenario } from './scenarios.js';
 import { accuracySuite } from './suite.js';
 
@@ -193,6 +194,7 @@ if (real) {
     '',
   );
 } else md.push('The real series folder was not found; no backtest this run.', '');
+md.push(refillSimMarkdown(runRefillSimulation(suite)));
 md.push('## Plots', '', ...images.map((f) => `![${f}](${f})`), '');
 mkdirSync(docs, { recursive: true });
 writeFileSync(`${docs}/accuracy.md`, md.join('\n'));
