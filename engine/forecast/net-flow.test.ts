@@ -31,6 +31,11 @@ describe('netFlowEta', () => {
     });
   });
 
+  it('calls a vanishing net outflow steady rather than an infinite time', () => {
+    const eta = value(netFlowEta({ volume: 1e6, inflow: 0, outflow: 5e-324 }));
+    expect(eta).toMatchObject({ state: 'steady', days: null });
+  });
+
   it('refuses impossible inputs', () => {
     expect(netFlowEta({ volume: -1, inflow: 0, outflow: 1 }).ok).toBe(false);
     expect(netFlowEta({ volume: 1, inflow: Number.NaN, outflow: 1 }).ok).toBe(false);

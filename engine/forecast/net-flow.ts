@@ -55,6 +55,13 @@ export function netFlowEta(input: NetFlowInput): Result<NetFlowEta> {
         message: 'The tank is already at or below the target.',
       });
     const days = (volume - target) / netOutflow;
+    if (!Number.isFinite(days))
+      return ok({
+        ...base,
+        state: 'steady',
+        days: null,
+        message: 'The net outflow is too small to ever reach the target.',
+      });
     return ok({
       ...base,
       state: 'emptying',
