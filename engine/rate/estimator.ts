@@ -35,6 +35,8 @@ const {
   MAX_PENDING,
   RATE_MEMORY_DAYS,
   RATE_MEMORY_INTERVALS,
+  RATE_MEMORY_MAX_DAYS,
+  RATE_TARGET_PRECISION,
   RECENT_KEEP_DAYS,
   RELEARN_WIDEN,
 } = tuning;
@@ -208,7 +210,15 @@ export class Estimator implements RateEstimator {
     const dt = (time - s.lastTime!) / DAY_MS;
     // Rate noise sized so the filter's memory is about `memory` days whatever the sampling: for an integrated
     // random walk the steady-state bandwidth is (q / (R dt))^(1/4) per day.
-    const memory = Math.max(RATE_MEMORY_DAYS, RATE_MEMORY_INTERVALS * s.dtMean);
+    // Under heavy noise or very slow use the memory grows (up to RATE_MEMORY_MAX_DAYS) until the rate's
+    // steady-state error, about sqrt(2 R dt / T^3), is near RATE_TARGET_PRECISION of the rate.
+    const wanted = RATE_TARGET_PRECISION * Math.abs(s.r) + 1e-6 * s.scale;
+    const quiet = Math.cbrt((2 * R * s.dtMean) / (wanted * wanted));
+    const memory = Math.max(
+      RATE_MEMORY_DAYS,
+      RATE_MEMORY_INTERVALS * s.dtMean,
+      Math.min(RATE_MEMORY_MAX_DAYS, quiet),
+    );
     const q = (R * s.dtMean) / memory ** 4;
     return predict(s, dt, q, this.pr);
   }

@@ -10,6 +10,9 @@ export const HUBER_C = 2.5;
 /** Memory of the rate in days (the filter's time constant) and its floor in sampling intervals. */
 export const RATE_MEMORY_DAYS = 1.5;
 export const RATE_MEMORY_INTERVALS = 3;
+/** Longest memory under heavy noise, and the relative rate precision the memory aims for. */
+export const RATE_MEMORY_MAX_DAYS = 5;
+export const RATE_TARGET_PRECISION = 0.03;
 /** Two-sided CUSUM on standardised innovations (Page, 1954): allowance and alarm level. */
 export const CUSUM_K = 0.5;
 export const CUSUM_H = 4;
@@ -26,7 +29,7 @@ export const Z80 = 1.2815515655446004;
  * standard error is widened by 1 + RATE_SIGMA_PER_OCTAVE * log2(readings per RATE_SIGMA_CORRELATION_DAYS),
  * calibrated on the accuracy bench so the ~80% range covers about 80%.
  */
-export const RATE_SIGMA_PER_OCTAVE = 0.3;
+export const RATE_SIGMA_PER_OCTAVE = 0.4;
 export const RATE_SIGMA_CORRELATION_DAYS = 0.25;
 /** A rate change must settle for this long before it is reported. */
 export const CHANGE_SETTLE_DAYS = 1;
