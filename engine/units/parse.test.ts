@@ -33,6 +33,11 @@ describe('parseQuantity', () => {
     expect(value('2 barrels per day')).toEqual({ kind: 'flow', value: 2, unit: 'bbl/d' });
     expect(value('3 h')).toEqual({ kind: 'time', value: 3, unit: 'h' });
     expect(value('.5 imperial gallons')).toEqual({ kind: 'volume', value: 0.5, unit: 'impgal' });
+    expect(value('0.5 m3')).toEqual({ kind: 'volume', value: 0.5, unit: 'm3' });
+    expect(value('12 ft3')).toEqual({ kind: 'volume', value: 12, unit: 'ft3' });
+    expect(value('2 m^3')).toEqual({ kind: 'volume', value: 2, unit: 'm3' });
+    expect(value('60 in.')).toEqual({ kind: 'length', value: 60, unit: 'in' });
+    expect(value('1e3 L')).toEqual({ kind: 'volume', value: 1000, unit: 'L' });
   });
 
   it('names an unknown unit and suggests the nearest one', () => {

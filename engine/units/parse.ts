@@ -110,7 +110,24 @@ export function parseUnit(word: string): Result<ParsedUnit> {
 
 // A number as people type it: optional sign, thousands separated by commas, decimals, exponent.
 const NUMBER = /\s*([+-]?(?:\d{1,3}(?:,\d{3})+|\d+)?(?:\.\d+)?(?:e[+-]?\d+)?)/iy;
-const UNIT_TEXT = /\s*([^\d+\-.]*[^\d\s+\-.]|)\s*/y;
+
+/**
+ * The unit text after a number, up to the next number: a 2 or 3 glued to a letter stays with the unit
+ * ("m3", "ft3", "m^3"), and so does a point that no digit follows ("60 in.").
+ */
+function readUnitText(source: string, start: number): { word: string; end: number } {
+  let i = start;
+  for (; i < source.length; i++) {
+    const c = source[i]!;
+    const next = source[i + 1] ?? '';
+    if (c >= '0' && c <= '9') {
+      const glued =
+        (c === '2' || c === '3') && i > start && /[a-z^]/i.test(source[i - 1]!) && !/[\d.,]/.test(next);
+      if (!glued) break;
+    } else if (c === '+' || c === '-' || (c === '.' && /\d/.test(next))) break;
+  }
+  return { word: source.slice(start, i).trim(), end: i };
+}
 
 /**
  * Reads a number with a unit: "62in", "62\"", "5' 2\"", "5ft 2in", "1.57 m", "48%", "1,550 L", "1.2 m³",
@@ -127,10 +144,9 @@ export function parseQuantity(text: string): Result<Quantity> {
     const digits = num?.[1] ?? '';
     if (!num || !/\d/.test(digits)) return fail(`"${text.trim()}" has no number where one was expected`);
     pos = NUMBER.lastIndex;
-    UNIT_TEXT.lastIndex = pos;
-    const unitMatch = UNIT_TEXT.exec(source);
-    const word = unitMatch?.[1] ?? '';
-    pos = unitMatch ? UNIT_TEXT.lastIndex : pos;
+    const unitText = readUnitText(source, pos);
+    const word = unitText.word;
+    pos = unitText.end;
     const value = Number(digits.replace(/,/g, ''));
     if (!Number.isFinite(value)) return fail(`"${digits}" is not a number I can use`);
     const unit = parseUnit(word);
