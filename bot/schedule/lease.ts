@@ -55,3 +55,10 @@ export function createLease(db: Database.Database, name: string, holder: string,
     },
   };
 }
+
+/** Thrown inside a claim when another process took the lease; ends the tick without posting. */
+export class LeaseLostError extends Error {
+  constructor(holder: string) {
+    super(`scheduler ${holder} no longer holds the lease`);
+  }
+}

@@ -9,7 +9,7 @@
 import type Database from 'better-sqlite3';
 import type { Reply } from '../replies/reply.js';
 import type { Store } from '../store/open-store.js';
-import type { Team } from '../store/types.js';
+import type { Tank, Team } from '../store/types.js';
 import { tankStatus } from '../tank-status.js';
 import { DEFAULT_STALE_DAYS } from './digest-sections.js';
 import { checkTimeZone, formatLocalDate, instantOfLocal, localDateOf, parseWallTime } from './local-time.js';
@@ -74,64 +74,88 @@ function staleReply(code: string, name: string, days: number): Reply {
   };
 }
 
-export function noticesFromStore(options: NoticeOptions = {}): ClaimNotices {
-  const bands: NoticeBands = { ...DEFAULT_BANDS, ...options };
-  const staleMs = (options.staleDays ?? DEFAULT_STALE_DAYS) * DAY;
-  let states: ReturnType<typeof statesRepo> | undefined;
-  let statesDb: Database.Database | undefined;
+interface TankContext {
+  store: Store;
+  repo: ReturnType<typeof statesRepo>;
+  team: Team;
+  channel: string;
+  morning: { ok: boolean; localDate: string };
+  now: number;
+  claim: (key: PostKey, replies: Reply[], dueAt: number) => boolean;
+  bands: NoticeBands;
+  staleMs: number;
+}
 
-  return (store: Store, now: number, claim: (key: PostKey, replies: Reply[], dueAt: number) => boolean) => {
-    if (statesDb !== store.db) {
-      states = statesRepo(store.db);
-      statesDb = store.db;
-    }
-    const repo = states!;
-    for (const team of store.teams.list()) {
-      const channel = team.digestChannel;
-      if (!channel) continue; // no team channel set: nowhere to say it
-      const morning = morningHasCome(team, now);
-      for (const tank of store.tanks.list(team.id)) {
-        const latest = store.readings.latest(team.id, tank.id, now);
-        if (latest && now - latest.time >= staleMs && morning.ok) {
+/** Stale reminder, then the notice rules if the tank has a reading its states have not seen. */
+function evaluateTank(tank: Tank, c: TankContext): void {
+  const { store, team, channel, now } = c;
+  const latest = store.readings.latest(team.id, tank.id, now);
+  if (!latest) return;
+  if (now - latest.time >= c.staleMs && c.morning.ok) {
+    const key: PostKey = {
+      teamId: team.id,
+      channel,
+      kind: 'stale',
+      key: `${tank.id}:${c.morning.localDate}`,
+    };
+    c.claim(key, [staleReply(tank.code, tank.name, (now - latest.time) / DAY)], now);
+  }
+  const known = c.repo.read(team.id, tank.id);
+  const seenAll = NOTICE_RULES.every((rule) => {
+    const seen = known.find((k) => k.rule === rule)?.seen_reading_at;
+    return seen !== null && seen !== undefined && seen >= latest.time;
+  });
+  if (seenAll) return;
+  const status = tankStatus(store, team.id, tank.id, now);
+  if (!status) return;
+  store.db
+    .transaction(() => {
+      for (const rule of NOTICE_RULES) {
+        const before = known.find((k) => k.rule === rule)?.state ?? 'armed';
+        const step = stepNotice(before, marginOf(rule, status), bandOf(rule, c.bands));
+        c.repo.write(team.id, tank.id, rule, step.state, now, latest.time);
+        if (step.transition === 'crossed') {
           const key: PostKey = {
             teamId: team.id,
             channel,
-            kind: 'stale',
-            key: `${tank.id}:${morning.localDate}`,
+            kind: 'notice',
+            key: `${tank.id}:${rule}:${latest.id}`,
           };
-          claim(key, [staleReply(tank.code, tank.name, (now - latest.time) / DAY)], now);
+          c.claim(key, [noticeReply(rule, status)], now);
         }
-        if (!latest) continue;
-        const known = repo.read(team.id, tank.id);
-        const seenAll = NOTICE_RULES.every((rule) => {
-          const row = known.find((k) => k.rule === rule);
-          return (
-            row?.seen_reading_at !== null &&
-            row?.seen_reading_at !== undefined &&
-            row.seen_reading_at >= latest.time
-          );
-        });
-        if (seenAll) continue;
-        const status = tankStatus(store, team.id, tank.id, now);
-        if (!status) continue;
-        store.db
-          .transaction(() => {
-            for (const rule of NOTICE_RULES) {
-              const before = known.find((k) => k.rule === rule)?.state ?? 'armed';
-              const step = stepNotice(before, marginOf(rule, status), bandOf(rule, bands));
-              repo.write(team.id, tank.id, rule, step.state, now, latest.time);
-              if (step.transition === 'crossed') {
-                const key: PostKey = {
-                  teamId: team.id,
-                  channel,
-                  kind: 'notice',
-                  key: `${tank.id}:${rule}:${latest.id}`,
-                };
-                claim(key, [noticeReply(rule, status)], now);
-              }
-            }
-          })
-          .immediate();
+      }
+    })
+    .immediate();
+}
+
+export function noticesFromStore(options: NoticeOptions = {}): ClaimNotices {
+  const bands: NoticeBands = { ...DEFAULT_BANDS, ...options };
+  const staleMs = (options.staleDays ?? DEFAULT_STALE_DAYS) * DAY;
+  const repos = new WeakMap<Database.Database, ReturnType<typeof statesRepo>>();
+
+  return (store, now, claim, report) => {
+    const repo = repos.get(store.db) ?? statesRepo(store.db);
+    repos.set(store.db, repo);
+    for (const team of store.teams.list()) {
+      const channel = team.digestChannel;
+      if (!channel) continue; // no team channel set: nowhere to say it
+      const context: TankContext = {
+        store,
+        repo,
+        team,
+        channel,
+        morning: morningHasCome(team, now),
+        now,
+        claim,
+        bands,
+        staleMs,
+      };
+      for (const tank of store.tanks.list(team.id)) {
+        try {
+          evaluateTank(tank, context);
+        } catch (error) {
+          report(team.id, error);
+        }
       }
     }
   };

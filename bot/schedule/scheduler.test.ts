@@ -295,3 +295,71 @@ describe('two schedulers on one store', () => {
     ]);
   });
 });
+
+describe('bad data never stops the scheduler', () => {
+  const from = utc('2026-06-01T00:00:00Z');
+  const due = utc('2026-06-01T05:00:00Z'); // 07:00 in Europe/Berlin
+
+  it('a team whose digest cannot be built is logged; the other teams still get theirs', async () => {
+    addDigestTeam(store, 'console:broken', 'Europe/Berlin', from);
+    addDigestTeam(store, 'console:kv', 'Europe/Berlin', from);
+    const clock = { value: due };
+    const { sch, posted, events } = scheduler(store, clock, {
+      composeDigest: (s, team, now, since) => {
+        if (team.id === 'console:broken') throw new Error('tank 7 has a corrupt shape');
+        return headlineDigest(s, team, now, since);
+      },
+    });
+    await sch.tick(due);
+    expect(posted.map((p) => p.team)).toEqual(['console:kv']);
+    expect(events).toContainEqual({
+      type: 'compose-failed',
+      teamId: 'console:broken',
+      error: 'tank 7 has a corrupt shape',
+    });
+  });
+
+  it('a zone or digest time the store holds but nobody can read yields no digest and no crash', async () => {
+    addDigestTeam(store, 'console:kv', 'Europe/Berlin', from);
+    store.teams.ensure('console:odd', from);
+    // Written straight to the store, past the bot's validation (a hand-edited file).
+    store.db
+      .prepare(
+        "UPDATE teams SET time_zone = 'Mars/Olympus', digest_time = '25:99', digest_channel = 'ops' WHERE id = ?",
+      )
+      .run('console:odd');
+    store.teams.ensure('console:odd2', from);
+    store.db
+      .prepare(
+        "UPDATE teams SET digest_time = 'seven', digest_days = 'not json', digest_channel = 'ops' WHERE id = ?",
+      )
+      .run('console:odd2');
+    const clock = { value: due };
+    const { sch, posted } = scheduler(store, clock);
+    await sch.tick(due);
+    expect(posted.map((p) => p.team)).toEqual(['console:kv']);
+  });
+
+  it('a claimed digest whose stored message is unreadable is expired and logged, not posted empty', async () => {
+    addDigestTeam(store, 'console:kv', 'Europe/Berlin', from);
+    const clock = { value: due };
+    const dying = createScheduler({
+      store,
+      clock: () => clock.value,
+      graceMinutes: 60,
+      composeDigest: headlineDigest,
+      claimNotices: false,
+      deliver: () => {
+        throw new Error('killed');
+      },
+    });
+    await dying.tick(due);
+    store.db.prepare("UPDATE schedule_posts SET payload = '{not json' WHERE kind = 'digest'").run();
+    const next = scheduler(temp.open(), clock);
+    await run(next.sch, clock, due + 5 * MIN, due + 30 * MIN, 5 * MIN);
+    expect(next.posted).toHaveLength(0);
+    expect(next.events).toContainEqual(
+      expect.objectContaining({ type: 'expired', reason: 'its stored message could not be read' }),
+    );
+  });
+});

@@ -16,7 +16,7 @@ import type { Store } from '../store/open-store.js';
 import type { Team } from '../store/types.js';
 import { digestFromStore } from './digest.js';
 import { createDigestCalendar, type DigestOccurrence } from './digest-calendar.js';
-import { createLease } from './lease.js';
+import { createLease, LeaseLostError } from './lease.js';
 import { noticesFromStore } from './notices.js';
 import { type PostKey, type PostKind, postsRepo } from './posts.js';
 
@@ -42,6 +42,8 @@ export type ClaimNotices = (
   store: Store,
   now: number,
   claim: (key: PostKey, replies: Reply[], dueAt: number) => boolean,
+  /** A tank or team that could not be evaluated (the others go on). */
+  report: (teamId: string, error: unknown) => void,
 ) => void;
 
 export type ScheduleEvent =
@@ -49,6 +51,7 @@ export type ScheduleEvent =
   | { type: 'skipped' | 'expired'; post: PostKey; dueAt: number; reason: string }
   | { type: 'delivery-failed'; post: PostKey; error: string }
   | { type: 'not-leader'; holder: string }
+  | { type: 'compose-failed'; teamId: string; error: string }
   | { type: 'tick-failed'; error: string };
 
 export interface SchedulerOptions {
@@ -129,8 +132,11 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
     const delivered: PostKey[] = [];
     for (const post of posts.take(holder, now, leaseTtlMs)) {
       const key: PostKey = { teamId: post.teamId, channel: post.channel, kind: post.kind, key: post.key };
-      if (now - post.dueAt > graceMs) {
-        const reason = `still undelivered after the ${options.graceMinutes}-minute grace period`;
+      const late = now - post.dueAt > graceMs;
+      if (late || post.replies.length === 0) {
+        const reason = late
+          ? `still undelivered after the ${options.graceMinutes}-minute grace period`
+          : 'its stored message could not be read';
         if (posts.expire(key, reason)) log({ type: 'expired', post: key, dueAt: post.dueAt, reason });
         continue;
       }
@@ -156,11 +162,23 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
       log({ type: 'not-leader', holder });
       return { leader: false, delivered: [] };
     }
+    // One team's failure (a bug, a broken tank) must not hold up the other teams' digests: log and go on;
+    // its digest is tried again on the next tick while the grace period lasts.
+    const report = (teamId: string, error: unknown) => {
+      if (error instanceof LeaseLostError) throw error;
+      log({ type: 'compose-failed', teamId, error: error instanceof Error ? error.message : String(error) });
+    };
     try {
       for (const team of store.teams.list()) {
-        for (const occurrence of calendar.due(team, now, graceMs + DAY)) claimDigest(team, occurrence, now);
+        try {
+          for (const occurrence of calendar.due(team, now, graceMs + DAY)) claimDigest(team, occurrence, now);
+        } catch (error) {
+          report(team.id, error);
+        }
       }
-      if (claimNotices) claimNotices(store, now, (key, replies, dueAt) => claim(key, replies, dueAt, now));
+      if (claimNotices) {
+        claimNotices(store, now, (key, replies, dueAt) => claim(key, replies, dueAt, now), report);
+      }
     } catch (error) {
       if (!(error instanceof LeaseLostError)) throw error;
       log({ type: 'not-leader', holder });
@@ -180,13 +198,6 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
     },
     release: () => lease.release(),
   };
-}
-
-/** Thrown inside a claim when another process took the lease; ends the tick without posting. */
-export class LeaseLostError extends Error {
-  constructor(holder: string) {
-    super(`scheduler ${holder} no longer holds the lease`);
-  }
 }
 
 /** The key a platform may deduplicate on: the same for every retry of one post. */
