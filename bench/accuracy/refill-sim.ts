@@ -97,6 +97,11 @@ export interface SimOutcome {
   /** Breaches while an order placed at the first check after the last delivery was still on its way: with
    * one order at a time and this lead time, no policy could have done better. */
   breachesOrderedAtOnce: number;
+  /** Breaches within 7 days after the use stepped up by more than 20%, or 2 days after a bulk withdrawal:
+   * surprises no forecast from past use foresees. */
+  breachesAfterSurprise: number;
+  /** Breaches with neither excuse: the planner's own misses, to hold against its service level. */
+  breachesOther: number;
   cycles: number;
   /** Cycles in which the tank ran dry (or, filling, reached its capacity). */
   dryOuts: number;
@@ -144,6 +149,8 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
     deliveries: 0,
     breaches: 0,
     breachesOrderedAtOnce: 0,
+    breachesAfterSurprise: 0,
+    breachesOther: 0,
     cycles: 1,
     dryOuts: 0,
     levelsAtArrival: [],
@@ -179,9 +186,12 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
     if (!breached && (s.filling ? volume > threshold : volume < threshold)) {
       breached = true;
       out.breaches++;
-      if (pending && pending.orderAt <= Math.max(lastArrival, start + WARM_UP_DAYS * DAY_MS) + HOUR_MS) {
-        out.breachesOrderedAtOnce++;
-      }
+      const atOnce =
+        pending !== null && pending.orderAt <= Math.max(lastArrival, start + WARM_UP_DAYS * DAY_MS) + HOUR_MS;
+      const surprise = afterSurprise(s, t);
+      if (atOnce) out.breachesOrderedAtOnce++;
+      if (surprise) out.breachesAfterSurprise++;
+      if (!atOnce && !surprise) out.breachesOther++;
     }
     if (!dry && (s.filling ? volume >= cap : volume <= 0)) {
       dry = true;
@@ -216,4 +226,15 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
 function afterDelivery(point: RatePoint, arrived: { at: number; quantity: number }, cap: number): RatePoint {
   const projected = point.volume - (point.rate * (arrived.at - point.time)) / DAY_MS;
   return { ...point, time: arrived.at, volume: Math.min(cap, Math.max(0, projected + arrived.quantity)) };
+}
+
+function afterSurprise(s: Scenario, t: number): boolean {
+  const stepUp = s.truth.changes.some((c) => {
+    if (c > t || c < t - 7 * DAY_MS) return false;
+    const before = Math.abs(s.truth.rateAt(c - HOUR_MS));
+    return Math.abs(s.truth.rateAt(c + HOUR_MS)) > 1.2 * before;
+  });
+  return (
+    stepUp || s.truth.events.some((e) => e.type === 'withdrawal' && e.start <= t && e.start >= t - 2 * DAY_MS)
+  );
 }
