@@ -5,6 +5,7 @@ import { discordLoadSection } from './discord-load.js';
 import { geometrySection } from './geometry.js';
 import { languageSection } from './language.js';
 import { rateSection } from './rate.js';
+import { refillSection } from './refill.js';
 import { replyLatencySection } from './reply-latency.js';
 import { slackLoadSection } from './slack-load.js';
 
@@ -15,6 +16,7 @@ export const sections: BenchSection[] = [
   chartsSection,
   geometrySection,
   rateSection,
+  refillSection,
   replyLatencySection,
   digestSection,
 ];
