@@ -183,3 +183,25 @@ describe('tankrunway analyze', () => {
     expect(noColumn.stderr).toMatch(/exactly one of the columns/);
   });
 });
+
+describe('tankrunway analyze on a filling tank', () => {
+  it('tells a filling tank from its data: a pick-up, a negative rate and a runway to full', async () => {
+    // A waste tank of 5000 L rising 300 L/day, emptied by a 3000 L pick-up on day 8 (readings every 2 h).
+    const lines = ['time,volume'];
+    for (let h = 0; h <= 12 * 24; h += 2) {
+      const volume = 1000 + (300 * h) / 24 - (h > 8 * 24 ? 3000 : 0);
+      lines.push(`${new Date(Date.UTC(2026, 3, 1) + h * 3_600_000).toISOString()},${volume}`);
+    }
+    const file = await csv('waste.csv', lines);
+    const out = JSON.parse((await run(['analyze', file, '--capacity', '5000', '--json'])).stdout);
+    expect(out.filling).toBe(true);
+    expect(out.events.map((e: { type: string }) => e.type)).toEqual(['pickup']);
+    const last = out.points[out.points.length - 1];
+    expect(last.rate).toBeCloseTo(-300, 0);
+    expect(last.runwayDays).toBeCloseTo((5000 - last.volume) / 300, 1);
+    const emptying = JSON.parse(
+      (await run(['analyze', await csv('e.csv', dailyLines(10)), '--json'])).stdout,
+    );
+    expect(emptying.filling).toBe(false);
+  });
+});

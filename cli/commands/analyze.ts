@@ -31,7 +31,10 @@ export interface AnalyzeOptions {
   capacity: number | null;
   /** Litres: the runway runs down to it (up to it on a filling tank); null = no runway. */
   target: number | null;
-  filling: boolean;
+  /** A filling tank (rises are use, drops are pick-ups); null = tell from the data (see isFillingSeries). */
+  filling: boolean | null;
+  /** True when no --target or --target-percent was given: empty (or full, on a filling tank). */
+  targetDefaulted?: boolean;
 }
 
 export interface AnalyzePoint {
@@ -48,6 +51,8 @@ export interface AnalyzePoint {
 
 export interface AnalyzeOutput {
   volumeUnit: VolumeUnit;
+  /** Whether the tank was analysed as filling (given by --filling, or told from the data). */
+  filling: boolean;
   points: AnalyzePoint[];
   events: { type: string; start: string; end: string; volume: number; logged: boolean }[];
   changes: { at: string; from: number; to: number }[];
@@ -65,17 +70,35 @@ const tidy = (x: number): number => {
   return Math.round(x * f) / f;
 };
 
+/**
+ * A tank whose trusted rate is negative (rising) at most points past the first fifth of the series is a
+ * filling tank (waste, produced water): its drops are pick-ups and its runway runs to full.
+ */
+export function isFillingSeries(analysis: SeriesAnalysis): boolean {
+  const points = analysis.points.slice(Math.floor(analysis.points.length / 5)).filter((p) => !p.suspect);
+  if (points.length < 3) return false;
+  return points.filter((p) => p.rate < 0).length > 0.6 * points.length;
+}
+
 /** The analysis JSON from readings already in litres: points, events, changes and suspect readings. */
 export function buildAnalyzeOutput(
   table: Pick<ReadingsTable, 'readings' | 'deliveries'>,
   options: AnalyzeOptions,
 ) {
-  const rateOptions = {
-    filling: options.filling,
-    ...(options.capacity !== null ? { capacity: options.capacity } : {}),
-  };
-  const analysis = analyzeSeries(table.readings, table.deliveries, rateOptions);
-  return { analysis, output: outputFrom(analysis, options) };
+  const run = (filling: boolean) =>
+    analyzeSeries(table.readings, table.deliveries, {
+      filling,
+      ...(options.capacity !== null ? { capacity: options.capacity } : {}),
+    });
+  let filling = options.filling === true;
+  let analysis = run(filling);
+  if (options.filling === null && isFillingSeries(analysis)) {
+    filling = true;
+    analysis = run(true);
+  }
+  const target = filling && options.targetDefaulted ? options.capacity : options.target;
+  const resolved: AnalyzeOptions = { ...options, filling, target };
+  return { analysis, output: outputFrom(analysis, resolved), options: resolved };
 }
 
 function outputFrom(analysis: SeriesAnalysis, options: AnalyzeOptions): AnalyzeOutput {
@@ -86,7 +109,7 @@ function outputFrom(analysis: SeriesAnalysis, options: AnalyzeOptions): AnalyzeO
     const runway =
       options.target === null
         ? { days: null, daysLow: null, daysHigh: null, runoutAt: null }
-        : runwayTo(p, { volume: options.target }, { filling: options.filling });
+        : runwayTo(p, { volume: options.target }, { filling: options.filling === true });
     return {
       time: isoTime(p.time),
       volume: out(p.volume),
@@ -106,6 +129,7 @@ function outputFrom(analysis: SeriesAnalysis, options: AnalyzeOptions): AnalyzeO
   }
   return {
     volumeUnit: unit,
+    filling: options.filling === true,
     points,
     events: analysis.events.map((e) => ({
       type: e.type,
@@ -162,7 +186,8 @@ export function resolveAnalyzeOptions(values: ArgValues, tank: Tank | null): Ana
   const capacity =
     capacityGiven !== undefined ? toLitres(capacityGiven, volumeUnit) : (tank?.capacity ?? null);
   if (capacity !== null && !(capacity > 0)) throw new UsageError('--capacity must be above zero');
-  const filling = values.filling === true;
+  // Without --filling the data tell whether the tank fills (isFillingSeries).
+  const filling = values.filling === true ? true : null;
   const targetGiven = positiveNumber(values.target, 'target');
   const percent = positiveNumber(values['target-percent'], 'target-percent');
   if (targetGiven !== undefined && percent !== undefined) {
@@ -175,7 +200,13 @@ export function resolveAnalyzeOptions(values: ArgValues, tank: Tank | null): Ana
     if (percent > 100) throw new UsageError('--target-percent must be between 0 and 100');
     target = (capacity * percent) / 100;
   }
-  return { volumeUnit, capacity, target, filling };
+  return {
+    volumeUnit,
+    capacity,
+    target,
+    filling,
+    targetDefaulted: targetGiven === undefined && percent === undefined,
+  };
 }
 
 /** Converts a reading in its column into litres for this tank and these options. */
@@ -251,8 +282,12 @@ export const analyzeCommand: CliCommand = {
       return 0;
     }
     const { values, options, table } = await loadAnalysisInput(argv, io);
-    const { analysis, output } = buildAnalyzeOutput(table, options);
-    const refill = await refillOption(values, options, analysis.points);
+    const { analysis, output, options: resolved } = buildAnalyzeOutput(table, options);
+    const refill = await refillOption(
+      values,
+      { ...resolved, filling: resolved.filling === true },
+      analysis.points,
+    );
     const full = refill ? { ...output, refill } : output;
     io.stdout.write(values.json ? `${JSON.stringify(full)}\n` : summary(output) + refillSummary(refill));
     return 0;
