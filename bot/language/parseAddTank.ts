@@ -1,7 +1,7 @@
 import { fail, ok, type Result } from '../../engine/result.js';
 import type { CommandOf, LengthUnitWord, ParseContext, TankSpecInput, VolumeUnitWord } from './command.js';
 import { parseLength } from './measurement.js';
-import { parseStrappingLines } from './parseStrappingRows.js';
+import { parsePastedTable } from './parseStrappingRows.js';
 import { isReservedWord, isTankNameShaped } from './tankName.js';
 import {
   type Dimension,
@@ -90,16 +90,16 @@ export function parseAddTank(
       ? strappingSpec(values, volumeUnit.value)
       : dimensionSpec(shape, values, volumeUnit.value);
   if (!spec.ok) return spec;
-  let awaitingRows = false;
-  if (shape === 'strapping') {
-    const table = parseStrappingLines(tableLines, spec.value.units);
+  // Rows in the same message are the whole table; without rows the bot awaits them.
+  const awaitingRows = shape === 'strapping' && tableLines.length === 0;
+  if (shape === 'strapping' && tableLines.length > 0) {
+    const table = parsePastedTable(tableLines, spec.value.units, values.has('level'));
     if (!table.ok) return fail(`Strapping table of ${tank}: ${table.error}`);
-    if (table.value.rows.length === 1 || (table.value.done && table.value.rows.length < 2)) {
+    if (table.value.rows.length < 2) {
       return fail('A strapping table needs at least two rows (level,volume); send the whole table.');
     }
-    if (table.value.rows.length > 0) spec.value.table = table.value.rows;
-    // Rows in the same message are the whole table; without rows the bot awaits them.
-    awaitingRows = table.value.rows.length === 0;
+    spec.value.units = table.value.units;
+    spec.value.table = table.value.rows;
   } else if (tableLines.some((l) => l.trim() !== '')) {
     return fail(`Only a strapping tank takes table lines; send one \`add tank\` line for a ${shape}.`);
   }

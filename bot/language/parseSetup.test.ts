@@ -72,8 +72,8 @@ describe('add tank in one line', () => {
     });
   });
 
-  it('reads a strapping table pasted under the line, header and units in cells included', () => {
-    const text = 'add tank T10 strapping unit=L\nlevel,volume\n0,0\n50,400\n1 m,900';
+  it('reads a strapping table pasted under the line; a cell may carry its own unit', () => {
+    const text = 'add tank T10 strapping unit=L\n0,0\n50,400\n1 m,900\ndone';
     expect(commandOf(text)).toMatchObject({
       type: 'add-tank',
       spec: {
@@ -86,6 +86,30 @@ describe('add tank in one line', () => {
         ],
       },
       awaitingRows: false,
+    });
+  });
+
+  it('takes the units a header names, through engine/geometry`s strapping CSV reader', () => {
+    expect(
+      commandOf('add tank T10 strapping unit=gal\nlevel_in,volume_gal\n0,0\n24,150\n48,310'),
+    ).toMatchObject({
+      spec: {
+        units: { length: 'in', volume: 'gal' },
+        table: [
+          [0, 0],
+          [24, 150],
+          [48, 310],
+        ],
+      },
+    });
+    expect(commandOf('add tank T10 strapping unit=L\nlevel,volume\n0,0\n50,400')).toMatchObject({
+      spec: {
+        units: { length: 'cm', volume: 'L' },
+        table: [
+          [0, 0],
+          [50, 400],
+        ],
+      },
     });
   });
 
@@ -116,6 +140,8 @@ describe('add tank in one line', () => {
     ['add tank T10 strapping unit=L\n0,0\n50,400\n40,500', /levels must rise/],
     ['add tank T10 strapping unit=L\n0,0\n50,abc', /Line 2/],
     ['add tank T10 strapping unit=L\n0,0', /at least two rows/],
+    ['add tank T10 strapping unit=L\nlevel_in,volume_gal\n0,0\n24,150', /header says gal but L was given/],
+    ['add tank T10 strapping unit=L\ndepth,litres\n0,0\n24,150', /`level_cm,volume_L`/],
     [
       'add tank T5 vertical diameter=2m length=2m unit=L\n0,0\n1,1',
       /Only a strapping tank takes table lines/,

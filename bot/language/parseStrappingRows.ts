@@ -1,3 +1,4 @@
+import { parseStrappingCsv } from '../../engine/geometry/index.js';
 import { fail, ok, type Result } from '../../engine/result.js';
 import { fromLitres, fromMetres, toLitres, toMetres } from '../../engine/units/index.js';
 import type { LengthUnitWord, VolumeUnitWord } from './command.js';
@@ -30,11 +31,13 @@ function readCell(
   return ok(round(fromLitres(toLitres(q.value, q.unit as VolumeUnitWord), unit as VolumeUnitWord)));
 }
 
-const isHeader = (line: string): boolean => /^[^\d.+-]/.test(line.trim()) && !/^\d/.test(line.trim());
+/** A first line of words, not numbers: the table's header ("level,volume", "level_in,volume_gal"). */
+const isHeader = (line: string): boolean =>
+  /^\p{L}/u.test(line.trim()) && !DONE_WORDS.has(line.trim().toLowerCase());
 
 /**
- * Lines of a strapping table pasted as CSV ("level,volume"; commas, semicolons or tabs). A first line of
- * words is a header and skipped. `done` on its own line ends the table. Without `units` (rows sent later,
+ * Rows of a strapping table as CSV lines ("level,volume"; commas, semicolons or tabs), with no header.
+ * `done` on its own line ends the table. Without `units` (rows sent later,
  * while the bot awaits them) cells must be bare numbers in the table's units.
  */
 export function parseStrappingLines(
@@ -53,7 +56,6 @@ export function parseStrappingLines(
       continue;
     }
     if (done) return fail(`Line ${index + 1} ("${line}") comes after "done"; send more rows before "done".`);
-    if (index === 0 && rows.length === 0 && isHeader(line)) continue;
     const cells = line.split(CELL_SPLIT).filter((c) => c !== '');
     if (cells.length !== 2) return fail(`Line ${index + 1} ("${line}") should have two values; ${ROW_HINT}.`);
     const level = readCell(cells[0] ?? '', 'length', units?.length);
@@ -77,6 +79,30 @@ export function parseStrappingLines(
   return ok({ rows, done });
 }
 
-/** True when a line reads as a table row (two numbers), so a pasted table is recognised. */
-export const looksLikeStrappingRow = (line: string): boolean =>
-  /^\s*[+-]?[\d.]+\s*[a-z"'%³]*\s*[,;\t ]\s*[+-]?[\d.,]+\s*[a-z³]*\s*$/i.test(line);
+/**
+ * A table pasted under `add tank NAME strapping`. With a header line, engine/geometry's strapping CSV reader
+ * reads it (the header may name the units, "level_in,volume_gal", and must agree with unit= and level=);
+ * without one, the rows are read here, where a cell may carry its own unit. A closing `done` is allowed.
+ */
+export function parsePastedTable(
+  lines: readonly string[],
+  units: { length: LengthUnitWord; volume: VolumeUnitWord },
+  levelUnitGiven: boolean,
+): Result<{ units: { length: LengthUnitWord; volume: VolumeUnitWord }; rows: StrappingRow[] }> {
+  const content = lines.map((l) => l.trim()).filter((l) => l !== '');
+  const [first] = content;
+  if (first === undefined || !isHeader(first)) {
+    const rows = parseStrappingLines(content, units);
+    return rows.ok ? ok({ units, rows: rows.value.rows }) : rows;
+  }
+  const last = content.at(-1) ?? '';
+  const body = DONE_WORDS.has(last.toLowerCase()) ? content.slice(0, -1) : content;
+  const bareLevel = /^\s*level\s*$/i.test(first.split(/[,;\t]/)[0] ?? '');
+  const table = parseStrappingCsv(body.join('\n'), {
+    volume: units.volume,
+    ...(levelUnitGiven || bareLevel ? { length: units.length } : {}),
+  });
+  if (!table.ok)
+    return fail(`${table.error}; write the header like \`level_cm,volume_L\`, then one row a line.`);
+  return ok({ units: table.value.units, rows: table.value.table });
+}
