@@ -60,7 +60,12 @@ export interface AnalyzeOutput {
 }
 
 /** ISO 8601 in UTC, without a ".000" when the instant is on a whole second. */
-export const isoTime = (ms: number): string => new Date(ms).toISOString().replace('.000Z', 'Z');
+export const isoTime = (ms: number): string => {
+  const text = new Date(ms).toISOString();
+  return text.endsWith('.000Z') ? `${text.slice(0, -5)}Z` : text;
+};
+/** Run-out instants to the second: finer would claim a precision the forecast does not have. */
+const toSecond = (ms: number) => Math.round(ms / 1000) * 1000;
 /** Rounds to about 8 significant digits, cheaply (toPrecision is slow over 100k points). */
 const tidy = (x: number): number => {
   if (x === 0 || !Number.isFinite(x)) return x;
@@ -119,7 +124,7 @@ function outputFrom(analysis: SeriesAnalysis, options: AnalyzeOptions): AnalyzeO
       runwayDays: days(runway.days),
       runwayDaysLow: days(runway.daysLow),
       runwayDaysHigh: days(runway.daysHigh),
-      runoutAt: runway.runoutAt === null ? null : isoTime(Math.round(runway.runoutAt)),
+      runoutAt: runway.runoutAt === null ? null : isoTime(toSecond(runway.runoutAt)),
     };
   });
   // Readings still waiting for confirmation at the end are untrusted too.
@@ -133,8 +138,8 @@ function outputFrom(analysis: SeriesAnalysis, options: AnalyzeOptions): AnalyzeO
     points,
     events: analysis.events.map((e) => ({
       type: e.type,
-      start: isoTime(Math.round(e.start)),
-      end: isoTime(Math.round(e.end)),
+      start: isoTime(toSecond(e.start)),
+      end: isoTime(toSecond(e.end)),
       volume: out(e.volume),
       logged: e.logged,
     })),
