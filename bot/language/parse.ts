@@ -85,6 +85,14 @@ function route(text: string, context: ParseContext): Result<Command> {
   if (context.awaiting === 'strapping-rows') {
     if (CANCEL_WORDS.has(word)) return ok({ type: 'cancel' });
     if (/^[\d.+-]/.test(first) || DONE_WORDS.has(word)) return strappingRows(lines);
+    // A header pasted with the rows: plain "level,volume" is skipped; one naming units cannot be checked here.
+    if (/^level\s*[,;\t]\s*volume$/i.test(first))
+      return more.length > 0 ? strappingRows(more) : ok({ type: 'strapping-rows', rows: [], done: false });
+    if (/^level\S*\s*[,;\t]\s*volume/i.test(first)) {
+      return fail(
+        'Leave out the header: send the rows as bare numbers in the units given with `add tank` (one `level,volume` a line), then `done`.',
+      );
+    }
   }
   if (first.length > MAX_LINE_CHARS)
     return fail(`That line is too long; one command is at most ${MAX_LINE_CHARS} characters. ${TRY}`);

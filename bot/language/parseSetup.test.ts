@@ -173,6 +173,15 @@ describe('strapping rows and guided answers while the bot awaits them', () => {
     expect(commandOf('done', awaitingRows)).toEqual({ type: 'strapping-rows', rows: [], done: true });
   });
 
+  it('skips a plain header and refuses one that names units it cannot check', () => {
+    expect(commandOf('level,volume\n10,52.5', awaitingRows)).toEqual({
+      type: 'strapping-rows',
+      rows: [[10, 52.5]],
+      done: false,
+    });
+    expect(errorOf('level_in,volume_gal\n10,52.5', awaitingRows)).toMatch(/Leave out the header/);
+  });
+
   it('lets other commands through and refuses a broken row', () => {
     expect(commandOf('T4 60in', awaitingRows)).toMatchObject({ type: 'reading' });
     expect(commandOf('cancel', awaitingRows)).toEqual({ type: 'cancel' });
