@@ -74,38 +74,6 @@ export function dueToday(statuses: readonly TankStatus[], now: number, zone: str
   });
 }
 
-/**
- * "Ridge Pump Station, diesel: 1,200 gal (GEN1 700 gal, GEN2 500 gal)": orders due today, one line per site
- * and product (tanks that can share one delivery), largest group first.
- */
-export function orderLines(due: readonly TankStatus[]): string[] {
-  const groups = new Map<string, TankStatus[]>();
-  for (const s of due) {
-    const mode = s.refill?.mode === 'pick-up' ? 'pick-up' : 'delivery';
-    const key = [s.tank.site ?? 'no site', s.tank.product ?? 'product not set', mode, s.volumeUnit].join(
-      '\u0000',
-    );
-    groups.set(key, [...(groups.get(key) ?? []), s]);
-  }
-  const lines = [...groups.entries()].map(([key, tanks]) => {
-    const [site, product, mode, unit] = key.split('\u0000') as [string, string, string, string];
-    const quantities = tanks.map((s) => s.refill?.quantity ?? null);
-    const known = quantities.filter((q): q is number => q !== null);
-    const each = tanks.map((s, i) => {
-      const q = quantities[i];
-      return `${s.tank.code} ${q === null || q === undefined ? 'quantity unknown' : formatVolume(q, unit)}`;
-    });
-    const total = known.reduce((a, b) => a + b, 0);
-    const head = `${site}, ${product}${mode === 'pick-up' ? ' (pick-up)' : ''}`;
-    const text =
-      tanks.length === 1
-        ? `${head}: ${each[0]}`
-        : `${head}: ${formatVolume(total, unit)} (${each.join(', ')})`;
-    return { total, text };
-  });
-  return lines.sort((a, b) => b.total - a.total || a.text.localeCompare(b.text)).map((l) => l.text);
-}
-
 /** The median gap between the tank's last readings (up to 10 gaps), or undefined with fewer than 3 readings. */
 export function usualInterval(status: TankStatus): number | undefined {
   const times = status.history.slice(-11).map((h) => h.time);

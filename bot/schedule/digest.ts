@@ -17,11 +17,11 @@ import {
   dropLines,
   dueToday,
   endOfLocalDay,
-  orderLines,
   overdueLines,
   problemLines,
   runwayRow,
 } from './digest-sections.js';
+import { orderLines } from './site-orders.js';
 
 /** The plain-text budget: under Discord's 2,000-character message with room for a mention or a link. */
 export const DIGEST_MAX_CHARS = 1_900;
@@ -130,7 +130,7 @@ export function composeDigest(input: DigestInput): Reply {
   const sections: Sections = {
     table: sorted,
     firstRows: sorted.slice(0, MOST_ROWS).map((status) => runwayRow(status, input.now, zone, endOfDay)),
-    orders: orderLines(due),
+    orders: orderLines(input.statuses, input.now, endOfDay),
     drops: dropLines(input.statuses, input.since, input.now, zone),
     problems: problemLines(input.statuses),
     overdue: overdueLines(input.statuses, input.now),
