@@ -3,15 +3,17 @@ import type { CommandOf, Measurement, ParseContext, StatedTime } from './command
 import { parseMeasurement, parseVolume } from './measurement.js';
 import { resolvePastTime, splitStatedTime } from './statedTime.js';
 import { matchTankPrefix, unknownTankMessage } from './tankName.js';
+import { DELIVERY_VERBS } from './words.js';
 
 const TICKET =
   /\s(?:ticket|tkt|invoice|bol)\s*(?:no\.?|number|#)?\s*[:#]?\s*([A-Za-z0-9][A-Za-z0-9-]{0,63})(?=\s|$)/i;
 const LEVEL_AFTER =
   /\s(?:level\s+after|after\s+level|level\s+now|level|now\s+at|reads?\s+after)\s*[:=]?\s+(?=[\d.]|ullage\b)/i;
-const DELIVERED_TO =
-  /^(?:delivered|delivery(?:\s+of)?|received|got|filled)\s+(.+?)\s+(?:to|into|for)\s+(.+)$/i;
+const VERB = DELIVERY_VERBS.map((v) => v.replace(/\s+/g, '\\s+')).join('|');
+const DELIVERED_TO = new RegExp(`^(?:${VERB})\\s+(.+?)\\s+(?:to|into|for)\\s+(.+)$`, 'i');
+const TANK_FIRST = new RegExp(`^(?:${VERB})\\s+(?:(?:to|into|for)\\s+)?(.+)$`, 'i');
 
-export const DELIVERY_WORDS = /^(?:delivered|delivery|received|got|filled)\b/i;
+export const DELIVERY_WORDS = new RegExp(`^(?:${VERB})\\b`, 'i');
 
 interface Extras {
   body: string;
@@ -67,9 +69,7 @@ export function parseDeliveredTo(text: string, context: ParseContext): Result<Co
   if (!extras.ok) return extras;
   const match = DELIVERED_TO.exec(extras.value.body);
   // "delivered to T4 150 gal", "delivery T4 150 gal": the tank first.
-  const tankFirst = /^(?:delivered|delivery|received|got|filled)\s+(?:(?:to|into|for)\s+)?(.+)$/i.exec(
-    extras.value.body,
-  );
+  const tankFirst = TANK_FIRST.exec(extras.value.body);
   const known = matchTankPrefix(tankFirst?.[1] ?? '', context.tankNames);
   if (known && known.rest !== '' && /^[\d.]/.test(known.rest))
     return build(known.tank, known.rest, extras.value, text);

@@ -39,6 +39,9 @@ export const UNDO_WORDS = new Set(['undo', 'undo that', 'undo last', 'scratch th
 export const OVERVIEW_WORDS = new Set(['all', 'status', 'tanks', 'all tanks', 'overview', 'summary']);
 export const DIGEST_NOW_WORDS = new Set(['digest now', 'send digest', 'send the digest', 'digest']);
 
+/** Words that start a delivery ("delivered 150 gal to T4", "T4 delivered 150 gal"). */
+export const DELIVERY_VERBS = ['delivered', 'delivery of', 'delivery', 'received', 'got', 'filled'];
+
 /** Words that, after a tank name, mark the number as the empty space above the liquid. "Outage" is a trade
  * synonym of ullage (common practice). */
 export const ULLAGE_WORDS = new Set(['ullage', 'outage', 'space', 'headspace']);
