@@ -159,6 +159,17 @@ describe('checked conversions and friendly errors', () => {
     expect(volume.ok && volume.value).toBe(cyl.fullHeight);
   });
 
+  it('never throws, whatever it is given (fast-check), and refuses sizes that overflow', () => {
+    fc.assert(
+      fc.property(fc.anything(), (input) => {
+        const r = buildTank(input);
+        if (!r.ok) expect(r.error).toMatch(/^tank: /);
+      }),
+    );
+    const huge = buildTank({ units: m, shape: 'sphere', diameter: 1e200 });
+    expect(huge.ok ? '' : huge.error).toMatch(/no usable volume/);
+  });
+
   it('accepts the unit words people write in a tank file', () => {
     const r = buildTank({ units: { length: 'inches', volume: 'gallons' }, shape: 'sphere', diameter: 10 });
     expect(r.ok && r.value.spec.units).toEqual({ length: 'in', volume: 'gal' });

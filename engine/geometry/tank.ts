@@ -28,7 +28,10 @@ export function buildTank(input: unknown): Result<Tank> {
   if (!spec.ok) return spec;
   const model = shapeModel(spec.value);
   if (!(model.fullHeight > 0)) return fail('tank: the full height must be above zero');
-  return ok(tankFromModel(spec.value, model));
+  const tank = tankFromModel(spec.value, model);
+  if (!(Number.isFinite(tank.capacity) && tank.capacity > 0 && Number.isFinite(tank.fullHeight)))
+    return fail('tank: these dimensions give no usable volume; check the numbers and their unit');
+  return ok(tank);
 }
 
 function tankFromModel(spec: TankSpec, model: ShapeModel): Tank {
