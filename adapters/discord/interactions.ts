@@ -16,6 +16,7 @@ import type { Reply } from '../../bot/replies/reply.js';
 import { actionCommand } from './embed.js';
 import { type ChartRenderer, type DiscordMessage, needsChart, toDiscordMessages } from './messages.js';
 import { messageFor, type Options, setupMessage } from './messageText.js';
+import { oneAtATime } from './oneAtATime.js';
 import { readSetupForm, SETUP_MODAL_ID, setupModal } from './setupModal.js';
 
 export interface InteractionDeps {
@@ -57,6 +58,9 @@ export function suggest(all: readonly string[], typed: string): string[] {
 
 export function createInteractionHandler(deps: InteractionDeps): (interaction: Interaction) => Promise<void> {
   const deferAfterMs = deps.deferAfterMs ?? 1500;
+  /** Interactions being answered now; one arriving while others are, is deferred at once. */
+  let inFlight = 0;
+  const botTurns = oneAtATime();
 
   /**
    * Sends the messages: the first as the interaction's response (or the edit of its deferred response), the
@@ -91,7 +95,7 @@ export function createInteractionHandler(deps: InteractionDeps): (interaction: I
       );
       return;
     }
-    const handling = deps.bot.handle({
+    const request = {
       team: teamOf(guildId),
       channel: interaction.channelId ?? 'unknown',
       user: interaction.user.id,
@@ -103,20 +107,36 @@ export function createInteractionHandler(deps: InteractionDeps): (interaction: I
       // The interaction's own time (from its id), so a replay resolves "at 7:30" exactly as the first did.
       receivedAt: interaction.createdTimestamp,
       dedupeKey: interaction.id,
-    });
+    };
     let deferred: Deferred = 'no';
-    let timer: NodeJS.Timeout | undefined;
-    const late = new Promise<'late'>((resolve) => {
-      timer = setTimeout(() => resolve('late'), deferAfterMs);
-    });
-    const first = await Promise.race([handling, late]);
-    clearTimeout(timer);
-    if (first === 'late') {
-      // Most replies are for the channel; a private one then replaces "thinking..." (see send).
-      await interaction.deferReply();
-      deferred = 'public';
+    // The bot's work runs on this one thread: in a burst, later interactions wait for earlier ones and no
+    // timer can fire meanwhile. So when others are in flight, acknowledge first, then queue for the bot.
+    const busy = inFlight > 0;
+    inFlight++;
+    let replies: Reply[];
+    try {
+      if (busy) {
+        await interaction.deferReply();
+        deferred = 'public';
+      }
+      const handling = botTurns.run(() => deps.bot.handle(request));
+      if (deferred === 'no') {
+        let timer: NodeJS.Timeout | undefined;
+        const late = new Promise<'late'>((resolve) => {
+          timer = setTimeout(() => resolve('late'), deferAfterMs);
+        });
+        const first = await Promise.race([handling, late]);
+        clearTimeout(timer);
+        if (first === 'late') {
+          // Most replies are for the channel; a private one then replaces "thinking..." (see send).
+          await interaction.deferReply();
+          deferred = 'public';
+        }
+      }
+      replies = await handling;
+    } finally {
+      inFlight--;
     }
-    const replies = await handling;
     if (replies.length === 0) replies.push({ kind: 'notice', visibility: 'sender', headline: 'Done.' });
     if (deferred === 'no' && needsChart(replies)) {
       const ephemeral = replies[0]?.visibility === 'sender';

@@ -14,6 +14,7 @@ export const sections: BenchSection[] = [
   languageSection,
   slackLoadSection,
   chartsSection,
+  discordLoadSection,
   geometrySection,
   rateSection,
   refillSection,
