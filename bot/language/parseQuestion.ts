@@ -12,7 +12,7 @@ const HOW_MUCH =
   /^how\s+much\s+(?:is\s+|do\s+we\s+have\s+)?(?:left\s+)?(?:in\s+)?(.+?)(?:\s+(?:left|now))?\s*\??$/i;
 const STATUS_OF = /^(?:status|level|show|runway|how\s+is|how's)\s+(?:of\s+)?(.+?)\s*\??$/i;
 const RUNNING_LOW =
-  /^(?:(?:which|what)\s+(?:tanks?\s+)?(?:will\s+|are\s+|is\s+|do\s+|does\s+)?(?:runs?|running|go(?:es)?|get(?:s)?|getting)\s+low|(?:running\s+)?low|who(?:'s|\s+is)?\s+(?:running\s+)?low)\b\s*(.*?)\s*\??$/i;
+  /^(?:(?:which|what)\s+(?:tanks?\s+)?(?:will\s+|are\s+|is\s+|do\s+|does\s+)?(?:runs?|running|go(?:es)?|get(?:s)?|getting)\s+low|(?:running\s+)?low|who(?:'s|\s+is)?\s+(?:running\s+)?low|anything\s+(?:running\s+)?low|(?:what|which\s+tanks?)\s+(?:needs?|to|should\s+(?:i|we))\s+(?:order(?:ing)?|refill(?:ing)?|top\s+up))\b\s*(.*?)\s*\??$/i;
 
 /** A question about one tank: "how long does T4 last?", "when does T4 run out?", "status T4". */
 export function parseTankQuestion(

@@ -151,6 +151,9 @@ describe('questions', () => {
     ['which tanks run low in 10 days?', '2026-11-20T15:00:00.000Z', 'the next 10 days'],
     ['low this week', '2026-11-16T05:59:59.999Z', 'this week'],
     ['which tanks run low?', '2026-11-17T15:00:00.000Z', 'the next 7 days'],
+    ['anything running low this week?', '2026-11-16T05:59:59.999Z', 'this week'],
+    ['what needs ordering?', '2026-11-17T15:00:00.000Z', 'the next 7 days'],
+    ['which tanks should we refill tomorrow', '2026-11-12T05:59:59.999Z', 'tomorrow'],
   ])('%s -> until %s', (text, iso, window) => {
     expect(commandOf(text)).toEqual({ type: 'running-low', until: utc(iso), window });
   });

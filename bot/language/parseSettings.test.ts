@@ -45,6 +45,14 @@ describe('settings', () => {
     ],
     ['set digest 6:30 pm mon,fri', { key: 'digest', time: '18:30', weekdays: [1, 5], channel: 'here' }],
     ['set digest off', { key: 'digest-off' }],
+    [
+      'set digest 07:00 weekdays in #ops',
+      { key: 'digest', time: '07:00', weekdays: [1, 2, 3, 4, 5], channel: '#ops' },
+    ],
+    [
+      'set digest at 6am mon-fri here',
+      { key: 'digest', time: '06:00', weekdays: [1, 2, 3, 4, 5], channel: 'here' },
+    ],
   ])('%s is a team setting', (text, setting) => {
     const command = commandOf(text);
     expect(command).toMatchObject({ type: 'set', setting });
