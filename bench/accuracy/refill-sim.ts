@@ -109,6 +109,8 @@ export interface SimOutcome {
   levelsAtArrival: number[];
   /** Arrivals that took the tank above its safe fill level. */
   overfills: number;
+  /** The largest excess over the safe fill level after an arrival, fraction of capacity. */
+  worstOverfill: number;
 }
 
 /** The scenario's own flow on its 5-minute grid, deliveries and pick-ups taken out (withdrawals stay: use). */
@@ -155,6 +157,7 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
     dryOuts: 0,
     levelsAtArrival: [],
     overfills: 0,
+    worstOverfill: 0,
   };
   let volume = s.truth.volumeAt(start);
   let pending: { orderAt: number; arriveAt: number; quantity: number } | null = null;
@@ -162,6 +165,7 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
   let breached = false;
   let dry = false;
   let next = 0; // next reading to feed
+  // The last point whose reading the estimator trusts: nobody orders on a reading that looks like a typo.
   let point: RatePoint | null = null;
   // The team knows a delivery came even before a reading shows it: the view adds it to the last estimate.
   let arrived: { at: number; quantity: number } | null = null;
@@ -173,7 +177,10 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
       out.levelsAtArrival.push(volume / cap);
       out.deliveries++;
       volume = s.filling ? volume - Math.min(volume, pending.quantity) : volume + pending.quantity;
-      if (!s.filling && volume > safeFill * 1.0001) out.overfills++;
+      if (!s.filling && volume > safeFill * 1.0001) {
+        out.overfills++;
+        out.worstOverfill = Math.max(out.worstOverfill, (volume - safeFill) / cap);
+      }
       volume = Math.min(cap, volume);
       if (logDeliveries) estimator.addDelivery(t + HOUR_MS, pending.quantity);
       arrived = { at: t, quantity: s.filling ? -pending.quantity : pending.quantity };
@@ -201,8 +208,10 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
     while (next < s.readings.length && s.readings[next]!.time <= t) {
       const r = s.readings[next++]!;
       const error = r.volume - s.truth.volumeAt(r.time);
-      point = estimator.addReading(r.time, Math.min(cap, Math.max(0, volume + error)));
-      if (arrived && r.time > arrived.at + HOUR_MS) arrived = null;
+      const latest = estimator.addReading(r.time, Math.min(cap, Math.max(0, volume + error)));
+      if (latest.suspect === undefined) point = latest;
+      // Until a trusted reading after the delivery shows it, the team adds it to the last estimate.
+      if (arrived && point && point.time > arrived.at + HOUR_MS) arrived = null;
     }
     // Daily at 08:00, and once more when a delivery has just come (the team logs it and sees the new plan).
     const justArrived = arrived !== null && arrived.at === t;
