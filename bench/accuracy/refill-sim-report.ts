@@ -68,8 +68,10 @@ export function refillSimMarkdown(rows: readonly PolicySummary[]): string {
   const lines = [
     '## Refill planning: closed-loop simulation',
     '',
-    "Each scenario's own use (deliveries taken out) drives a simulated tank checked once a day at 08:00 UTC;",
-    "readings carry the scenario's reading errors. Supplier terms: 2 business days, orders by 12:00, weekday",
+    "Each scenario's own use (deliveries taken out) drives a simulated tank checked once a day at 08:00 UTC",
+    "and when a delivery has come; readings carry the scenario's reading errors, and a policy acts on the last",
+    'reading the rate estimator trusts (plus any delivery since). One order at a time; it arrives at 10:00 on',
+    'its delivery day with the quantity ordered. Supplier terms: 2 business days, orders by 12:00, weekday',
     'deliveries, minimum 20% of capacity in 1% steps, safe fill 90%. A breach is a delivery cycle in which',
     'the true volume fell below the 10% threshold (rose above 85% on a filling tank); the planner aims at',
     'no more than 5% of cycles at 95%. A fixed rule orders below 30% or 50% (books a pick-up above 70% or 50%).',
