@@ -45,7 +45,11 @@ export function resolveHead(spec: HeadSpec | null | undefined, radius: number, t
       dishDepth: dish * (1 - Math.cos(alpha)),
     };
   }
-  const depth = type === 'flat' ? 0 : (spec?.depth ?? 0) * toM;
+  const given = type === 'flat' ? 0 : (spec?.depth ?? 0) * toM;
+  // A head of no depth is a flat end; a spherical cap a rounding hair deeper than the radius is a hemisphere.
+  if (given === 0)
+    return { type: 'flat', radius, depth: 0, inward, dishRadius: 0, knuckleRadius: 0, dishDepth: 0 };
+  const depth = type === 'spherical' ? Math.min(given, radius) : given;
   const dishRadius = type === 'spherical' ? (radius * radius + depth * depth) / (2 * depth) : 0;
   return { type, radius, depth, inward, dishRadius, knuckleRadius: 0, dishDepth: depth };
 }

@@ -107,9 +107,10 @@ function checkShape(spec: TankSpec, ctx: z.RefinementCtx): void {
           path,
           `the ${where} torispherical head needs 0 < k <= 0.5 and f >= 0.5 (got f=${head.f}, k=${head.k})`,
         );
-    } else if (!head.depth) {
-      issue(path, `the ${where} ${head.type} head needs a positive depth in ${spec.units.length}`);
-    } else if (head.type === 'spherical' && head.depth > radius * (1 + 1e-12)) {
+    } else if (head.depth === undefined) {
+      // A depth of 0 is a flat end (as the reference data write it); a missing depth is a mistake.
+      issue(path, `the ${where} ${head.type} head needs its depth in ${spec.units.length}`);
+    } else if (head.type === 'spherical' && head.depth > radius * (1 + 1e-9)) {
       issue(path, `a spherical head's depth cannot exceed the radius (${radius} ${spec.units.length})`);
     }
     if (head.type === 'guppy' && spec.shape === 'vertical-cylinder')

@@ -170,6 +170,18 @@ describe('checked conversions and friendly errors', () => {
     expect(huge.ok ? '' : huge.error).toMatch(/no usable volume/);
   });
 
+  it('reads a head of depth 0 as a flat end', () => {
+    const zero = tank({
+      units: m,
+      shape: 'horizontal-cylinder',
+      diameter: 2,
+      length: 3,
+      heads: [{ type: 'conical', depth: 0 }],
+    });
+    const flat = tank({ units: m, shape: 'horizontal-cylinder', diameter: 2, length: 3 });
+    expect(zero.volumeAt(0.7)).toBe(flat.volumeAt(0.7));
+  });
+
   it('accepts the unit words people write in a tank file', () => {
     const r = buildTank({ units: { length: 'inches', volume: 'gallons' }, shape: 'sphere', diameter: 10 });
     expect(r.ok && r.value.spec.units).toEqual({ length: 'in', volume: 'gal' });
@@ -201,7 +213,7 @@ describe('checked conversions and friendly errors', () => {
     ],
     [
       { units: m, shape: 'horizontal-cylinder', diameter: 2, length: 3, heads: [{ type: 'conical' }] },
-      /needs a positive depth in m/,
+      /needs its depth in m/,
     ],
     [
       { units: m, shape: 'vertical-cylinder', diameter: 2, length: 3, heads: [{ type: 'guppy', depth: 1 }] },
