@@ -1,11 +1,19 @@
 import { runwayTo } from '../engine/forecast/runway.js';
 import { buildTank, type Tank as TankGeometry } from '../engine/geometry/index.js';
-import { analyzeSeries, type RatePoint, type TankEventType, type TimedVolume } from '../engine/rate/index.js';
+import {
+  createRateEstimator,
+  type RatePoint,
+  restoreRateEstimator,
+  type TankEvent,
+  type TankEventType,
+  type TimedVolume,
+} from '../engine/rate/index.js';
 import { planRefill, type RefillPlan } from '../engine/refill/planRefill.js';
 import { fromLitres, fromMetres, isVolumeUnit, toLitres } from '../engine/units/index.js';
 import { readingLevelMetres, readingLitres } from './reading-volume.js';
 import type { Store } from './store/index.js';
-import type { Delivery, Reading, Tank } from './store/types.js';
+import type { SeriesReading } from './store/readings.js';
+import type { Delivery, Tank } from './store/types.js';
 
 const DAY_MS = 86_400_000;
 
@@ -63,7 +71,12 @@ export interface TankStatus {
   safeFill: number;
   overSafeFill: boolean;
   events: { type: TankEventType; start: number; end: number; volume: number; logged: boolean }[];
-  /** Confirmed readings as volumes (display unit) in time order: the chart's history. */
+  /** How many readings the figures rest on (all history, not only the chart's window). */
+  readingCount: number;
+  /**
+   * Confirmed readings of the last 120 days (at most the newest 1,000) as volumes in the display unit, in
+   * time order: the chart's history.
+   */
   history: { time: number; volume: number }[];
   deliveries: { time: number; volume: number }[];
   /** Readings left out because the current shape cannot hold them (e.g. after a shape correction). */
@@ -84,7 +97,7 @@ function thresholdLitres(tank: Tank, geometry: TankGeometry): number | undefined
 }
 
 interface Series {
-  readings: (TimedVolume & { row: Reading })[];
+  readings: (TimedVolume & { row: SeriesReading })[];
   deliveries: TimedVolume[];
   skipped: number;
 }
@@ -92,7 +105,7 @@ interface Series {
 /** Raw readings and deliveries to litres with the tank's current shape; readings it cannot hold are skipped. */
 export function seriesOf(
   geometry: TankGeometry,
-  readings: readonly Reading[],
+  readings: readonly SeriesReading[],
   deliveries: readonly Delivery[],
 ): Series {
   const out: Series = { readings: [], deliveries: [], skipped: 0 };
@@ -129,6 +142,7 @@ export function tankStatus(
       safeFill: Number.NaN,
       overSafeFill: false,
       events: [],
+      readingCount: 0,
       history: [],
       deliveries: [],
       skipped: 0,
@@ -138,15 +152,15 @@ export function tankStatus(
   const geometry = built.value;
   const { length: lengthUnit, volume: volumeUnit } = geometry.spec.units;
   const show = (litres: number) => fromLitres(litres, volumeUnit);
-  const series = seriesOf(
+  const rate = rateOf(store, teamId, tank, geometry, filling);
+  const latestRow = store.readings.latest(teamId, tankId);
+  // The chart and "change since" need only recent readings; the rate state carries the rest.
+  const since = (latestRow?.time ?? now) - HISTORY_WINDOW_MS;
+  const recent = seriesOf(
     geometry,
-    store.readings.forTank(teamId, tankId),
-    store.deliveries.forTank(teamId, tankId),
+    store.readings.recentSeries(teamId, tankId, since, HISTORY_LIMIT),
+    store.deliveries.forTank(teamId, tankId, { since: since + 1 }),
   );
-  const analysis = analyzeSeries(series.readings, series.deliveries, {
-    capacity: geometry.capacity,
-    filling,
-  });
   const safeFillLitres =
     ((tank.settings.safeFillPercent ?? DEFAULT_SAFE_FILL_PERCENT) / 100) * geometry.capacity;
   const threshold = thresholdLitres(tank, geometry);
@@ -160,16 +174,20 @@ export function tankStatus(
     fullHeight: fromMetres(geometry.fullHeight, lengthUnit),
     safeFill: show(safeFillLitres),
     overSafeFill: false,
-    events: analysis.events.map((e) => ({ ...e, volume: show(e.volume) })),
-    history: series.readings.map((r) => ({ time: r.time, volume: show(r.volume) })),
-    deliveries: series.deliveries.map((d) => ({ time: d.time, volume: show(d.volume) })),
-    skipped: series.skipped,
+    events: rate.events.map((e) => ({ ...e, volume: show(e.volume) })),
+    readingCount: rate.readings,
+    history: recent.readings.map((r) => ({ time: r.time, volume: show(r.volume) })),
+    // Deliveries from where the history starts, so the chart marks none before its first reading.
+    deliveries: recent.deliveries
+      .filter((d) => d.time >= (recent.readings[0]?.time ?? since))
+      .map((d) => ({ time: d.time, volume: show(d.volume) })),
+    skipped: rate.skipped,
     ...(threshold !== undefined ? { threshold: show(threshold) } : {}),
   };
 
-  const lastIndex = series.readings.length - 1;
-  const last = series.readings[lastIndex];
-  const point = analysis.points[lastIndex];
+  const lastIndex = recent.readings.length - 1;
+  const last = recent.readings[lastIndex];
+  const point = rate.latest;
   if (!last || !point) return status;
   const level = readingLevelMetres(geometry, last.row);
   status.latest = {
@@ -179,13 +197,14 @@ export function tankStatus(
     fraction: last.volume / geometry.capacity,
     ...(level !== undefined ? { level: fromMetres(level, lengthUnit) } : {}),
     ageMs: now - last.time,
-    rawText: last.row.rawText,
-    ...(point.suspect ? { suspect: point.suspect } : {}),
+    rawText:
+      (last.row.id === latestRow?.id ? latestRow : store.readings.byId(teamId, last.row.id))?.rawText ?? '',
+    ...(point.suspect && point.time === last.time ? { suspect: point.suspect } : {}),
   };
   status.overSafeFill = last.volume > safeFillLitres * (1 + 1e-9);
-  const before = series.readings[lastIndex - 1];
+  const before = recent.readings[lastIndex - 1];
   if (before) status.previous = { time: before.time, volume: show(before.volume) };
-  const trusted = lastTrustedPoint(analysis.points);
+  const trusted = rate.trusted;
   if (trusted) {
     const sign = filling ? -1 : 1;
     status.rate = {
@@ -247,13 +266,76 @@ function inDisplayUnits(plan: RefillPlan, show: (litres: number) => number): Par
   };
 }
 
-/** The newest point the estimator trusted; a suspect reading must not move the figures. */
-function lastTrustedPoint(points: readonly RatePoint[]): RatePoint | undefined {
-  for (let i = points.length - 1; i >= 0; i--) {
-    const p = points[i]!;
-    if (!p.suspect) return p;
+const STATE_VERSION = createRateEstimator().toJSON().version;
+
+/** How far back the chart's history and the "change since" reach, from the newest reading. */
+const HISTORY_WINDOW_MS = 120 * DAY_MS;
+/** ...and at most this many readings: six weeks of an hourly sensor, more than a phone's chart can show. */
+const HISTORY_LIMIT = 1000;
+
+interface RateResult {
+  events: readonly TankEvent[];
+  /** The point of the newest reading, and the newest trusted one (a suspect reading must not move figures). */
+  latest: RatePoint | null;
+  trusted: RatePoint | null;
+  readings: number;
+  skipped: number;
+}
+
+/**
+ * The rate estimator over every reading and delivery of the tank, resumed from the cached state when the
+ * cache is still valid (the store's triggers drop it on any change back in time), fed in the order of
+ * engine/rate `analyzeSeries` (a delivery at or before a reading's instant goes first), so the result is
+ * the batch result. The state after the newest reading is cached again; later deliveries are not.
+ */
+function rateOf(
+  store: Store,
+  teamId: string,
+  tank: Tank,
+  geometry: TankGeometry,
+  filling: boolean,
+): RateResult {
+  const specKey = JSON.stringify([tank.spec, filling]);
+  const cached = store.rateCache.get(teamId, tank.id);
+  // A state from another engine version, or for another shape, is not resumed.
+  const cache = cached?.specKey === specKey && cached.state.version === STATE_VERSION ? cached : undefined;
+  const estimator = cache
+    ? restoreRateEstimator(cache.state)
+    : createRateEstimator({ capacity: geometry.capacity, filling });
+  const since = cache ? cache.asOfTime : Number.MIN_SAFE_INTEGER;
+  const fresh = seriesOf(
+    geometry,
+    store.readings.series(teamId, tank.id, since),
+    store.deliveries.forTank(teamId, tank.id, { since: since + 1 }),
+  );
+  let latest = cache?.points.latest ?? null;
+  let trusted = cache?.points.trusted ?? null;
+  let d = 0;
+  for (const r of fresh.readings) {
+    while (d < fresh.deliveries.length && fresh.deliveries[d]!.time <= r.time) {
+      estimator.addDelivery(fresh.deliveries[d]!.time, fresh.deliveries[d]!.volume);
+      d++;
+    }
+    latest = estimator.addReading(r.time, r.volume);
+    if (!latest.suspect) trusted = latest;
   }
-  return points[points.length - 1];
+  const readings = (cache?.readings ?? 0) + fresh.readings.length;
+  const skipped = (cache?.skipped ?? 0) + fresh.skipped;
+  const newest = fresh.readings[fresh.readings.length - 1];
+  if (newest) {
+    store.rateCache.put(teamId, tank.id, {
+      asOfTime: newest.time,
+      readings,
+      skipped,
+      specKey,
+      state: estimator.toJSON(),
+      points: { latest, trusted },
+    });
+  }
+  for (; d < fresh.deliveries.length; d++) {
+    estimator.addDelivery(fresh.deliveries[d]!.time, fresh.deliveries[d]!.volume);
+  }
+  return { events: estimator.events, latest, trusted: trusted ?? latest, readings, skipped };
 }
 
 function runwayFrom(

@@ -24,7 +24,7 @@ export function dateFromNow(time: number, now: number, timeZone: string): string
 }
 
 /** One reading gives a volume but no rate yet. */
-const hasRate = (s: TankStatus): boolean => s.rate !== undefined && s.history.length >= 2;
+const hasRate = (s: TankStatus): boolean => s.rate !== undefined && s.readingCount >= 2;
 
 /** "470 gal (83%)". */
 export function volumeText(s: TankStatus): string {

@@ -30,7 +30,7 @@ export function tankTable(statuses: readonly TankStatus[], now: number, timeZone
 
 function runwayCell(s: TankStatus): string {
   const r = s.runway;
-  if (!r || s.history.length < 2) return '-';
+  if (!r || s.readingCount < 2) return '-';
   if (r.days === null) return s.filling ? 'not rising' : 'not falling';
   return formatDuration({
     value: r.days,
@@ -41,7 +41,7 @@ function runwayCell(s: TankStatus): string {
 
 function refillCell(s: TankStatus, now: number, timeZone: string): string {
   const p = s.refill;
-  if (!p || s.history.length < 2) return '-';
+  if (!p || s.readingCount < 2) return '-';
   const what = p.mode === 'pick-up' ? 'pick-up' : 'order';
   if (p.verdict === 'order-now') return `${what} now`;
   if (p.verdict === 'order-by' && p.orderBy !== null)

@@ -1,5 +1,6 @@
 import type Database from 'better-sqlite3';
 import { createScheduleTables } from '../schedule/schema.js';
+import { RATE_CACHE_SQL } from './rate-cache.js';
 
 /**
  * The store's schema, as an ordered list: each migration runs once, in order, inside one transaction, and
@@ -123,6 +124,13 @@ export const migrations: Migration[] = [
     },
   },
   { version: 2, name: 'schedule: lease, claimed posts, notice states', up: createScheduleTables },
+  {
+    version: 3,
+    name: 'rate cache per tank (dropped by triggers on any change back in time); covering index of readings',
+    up(db) {
+      db.exec(RATE_CACHE_SQL);
+    },
+  },
 ];
 
 /** Brings a database up to the last migration; each step commits on its own so a crash leaves a known version. */

@@ -4,6 +4,7 @@ import { type DeliveriesRepo, deliveriesRepo } from './deliveries.js';
 import { type Migration, migrate, migrations } from './migrations.js';
 import { type PendingExchangesRepo, pendingExchangesRepo } from './pending-exchanges.js';
 import { type ProcessedRequestsRepo, processedRequestsRepo } from './processed-requests.js';
+import { type RateCacheRepo, rateCacheRepo } from './rate-cache.js';
 import { type ReadingsRepo, readingsRepo } from './readings.js';
 import { type TanksRepo, tanksRepo } from './tanks.js';
 import { type TeamsRepo, teamsRepo } from './teams.js';
@@ -20,6 +21,7 @@ export interface Store {
   audit: AuditRepo;
   processedRequests: ProcessedRequestsRepo;
   pending: PendingExchangesRepo;
+  rateCache: RateCacheRepo;
   /** Runs `fn` in one SQLite transaction (nested calls become savepoints); a throw rolls everything back. */
   transaction<T>(fn: () => T): T;
   /** The open database, for parts that keep their own tables (bot/schedule appends its migrations). */
@@ -55,6 +57,7 @@ export function openStore(path: string, options: OpenStoreOptions = {}): Store {
     audit: auditRepo(db),
     processedRequests: processedRequestsRepo(db),
     pending: pendingExchangesRepo(db),
+    rateCache: rateCacheRepo(db),
     transaction: <T>(fn: () => T): T => db.transaction(fn)(),
     db,
     path,

@@ -20,6 +20,13 @@ export interface ReadingsRepo {
   byId(teamId: string, id: number): Reading | undefined;
   /** Live readings of one tank in time order (by id within the same instant); held ones only when asked. */
   forTank(teamId: string, tankId: number, options?: { since?: number; includeHeld?: boolean }): Reading[];
+  /**
+   * Live confirmed readings after `since` with only what a volume needs, from a covering index: the fast
+   * path of every figure (a question reads thousands of them).
+   */
+  series(teamId: string, tankId: number, since: number): SeriesReading[];
+  /** The newest `limit` of those after `since`, in time order (a chart's history of a dense sensor). */
+  recentSeries(teamId: string, tankId: number, since: number, limit: number): SeriesReading[];
   /** The latest live, confirmed reading at or before `at`, if any. */
   latest(teamId: string, tankId: number, at?: number): Reading | undefined;
   setStatus(teamId: string, id: number, status: ReadingStatus): boolean;
@@ -47,6 +54,9 @@ const toReading = (r: ReadingDbRow): Reading => ({
 
 const LIVE = 'team_id = ? AND tank_id = ? AND deleted_at IS NULL';
 
+/** A reading reduced to what its volume needs. */
+export type SeriesReading = Pick<Reading, 'id' | 'time' | 'kind' | 'value' | 'unit'>;
+
 export function readingsRepo(db: Database.Database): ReadingsRepo {
   const insert = db.prepare(
     `INSERT INTO readings (team_id, tank_id, time, kind, value, unit, raw_text, user_id, status, created_at)
@@ -57,6 +67,16 @@ export function readingsRepo(db: Database.Database): ReadingsRepo {
   );
   const forTank = db.prepare<[string, number, number, number], ReadingDbRow>(
     `SELECT * FROM readings WHERE ${LIVE} AND time >= ? AND (status = 'ok' OR ? = 1) ORDER BY time, id`,
+  );
+  // The WHERE matches the partial index readings_series (migration 3) word for word, so SQLite reads the index only.
+  const series = db.prepare<[string, number, number], SeriesReading>(
+    `SELECT id, time, kind, value, unit FROM readings INDEXED BY readings_series
+     WHERE team_id = ? AND tank_id = ? AND deleted_at IS NULL AND status = 'ok' AND time > ? ORDER BY time, id`,
+  );
+  const recentSeries = db.prepare<[string, number, number, number], SeriesReading>(
+    `SELECT id, time, kind, value, unit FROM readings INDEXED BY readings_series
+     WHERE team_id = ? AND tank_id = ? AND deleted_at IS NULL AND status = 'ok' AND time > ?
+     ORDER BY time DESC, id DESC LIMIT ?`,
   );
   const latest = db.prepare<[string, number, number], ReadingDbRow>(
     `SELECT * FROM readings WHERE ${LIVE} AND status = 'ok' AND time <= ? ORDER BY time DESC, id DESC LIMIT 1`,
@@ -104,6 +124,8 @@ export function readingsRepo(db: Database.Database): ReadingsRepo {
       forTank
         .all(teamId, tankId, options.since ?? Number.MIN_SAFE_INTEGER, options.includeHeld ? 1 : 0)
         .map(toReading),
+    series: (teamId, tankId, since) => series.all(teamId, tankId, since),
+    recentSeries: (teamId, tankId, since, limit) => recentSeries.all(teamId, tankId, since, limit).reverse(),
     latest: (teamId, tankId, at = Number.MAX_SAFE_INTEGER) => {
       const row = latest.get(teamId, tankId, at);
       return row ? toReading(row) : undefined;
