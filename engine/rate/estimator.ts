@@ -33,6 +33,7 @@ const {
   EVENT_Z,
   HUBER_C,
   MAX_PENDING,
+  PROFILE_MEMORY_DAYS,
   RATE_MEMORY_DAYS,
   RATE_MEMORY_INTERVALS,
   RATE_MEMORY_MAX_DAYS,
@@ -41,8 +42,8 @@ const {
   RELEARN_WIDEN,
 } = tuning;
 
-/** Bumped whenever the state's shape or meaning changes (2: recent readings kept for refits). */
-export const RATE_STATE_VERSION = 2;
+/** Bumped whenever the state's shape or meaning changes (2: recent readings kept for refits; 3: daily profile). */
+export const RATE_STATE_VERSION = 3;
 
 export function initialState(options: RateOptions = {}): RateEstimatorState {
   const capacity = options.capacity !== undefined && options.capacity > 0 ? options.capacity : null;
@@ -68,6 +69,7 @@ export function initialState(options: RateOptions = {}): RateEstimatorState {
     basisCount: 0,
     recentTimes: [],
     recentVolumes: [],
+    dailyProfile: new Array(24).fill(0),
     pending: [],
     undo: null,
     loggedPending: [],
@@ -78,6 +80,8 @@ export function initialState(options: RateOptions = {}): RateEstimatorState {
     suspects: [],
   };
 }
+
+const hourOfDay = (time: number) => Math.floor((((time % DAY_MS) + DAY_MS) % DAY_MS) / 3_600_000);
 
 export class Estimator implements RateEstimator {
   private readonly pr: Prediction = { v: 0, p00: 0, p01: 0, p11: 0 };
@@ -110,15 +114,16 @@ export class Estimator implements RateEstimator {
     s.loggedPending.push({ time, volume: volumeLitres });
   }
 
-  addReading(time: number, volume: number): RatePoint {
+  addReading(time: number, reading: number): RatePoint {
     const s = this.s;
-    const problem = this.rejectReason(time, volume);
+    const problem = this.rejectReason(time, reading);
     if (problem) {
       if (Number.isFinite(time)) s.suspects.push({ time, reason: problem });
       return rejectedPoint(s.lastPoint, time, problem);
     }
     s.count++;
-    if (volume > s.scale) s.scale = volume;
+    if (reading > s.scale) s.scale = reading;
+    const volume = reading - this.profileAt(time);
     if (s.lastTime === null) return this.start(time, volume);
     this.trackInterval(time);
     const R = this.noiseVar();
@@ -243,8 +248,34 @@ export class Estimator implements RateEstimator {
     // Dense readings are not independent (thermal swing, working hours): each counts for at most its share
     // of the decorrelation time, so a sensor every 5 minutes does not raise an alarm 72 times sooner.
     pushRecent(s, time, volume);
+    this.learnProfile(time, volume, dt);
     this.detectChange(time, z, before, Math.min(1, dt / CUSUM_DECORRELATION_DAYS));
     trimRecent(s, Math.min(s.cusumPosStart, s.cusumNegStart, time - RECENT_KEEP_DAYS * DAY_MS));
+  }
+
+  /**
+   * A daily shape (working hours, thermal swing) would otherwise pass for rate changes. Dense series learn
+   * the level's mean deviation per hour of day (each hour's memory about PROFILE_MEMORY_DAYS) and readings
+   * are taken net of it: a seasonal adjustment in the spirit of the structural model's daily seasonal
+   * (Harvey 1989, ch. 2), kept as 24 running means instead of extra filter states for speed.
+   */
+  private profileAt(time: number): number {
+    const s = this.s;
+    if (s.dtMean === 0 || s.dtMean >= DENSE_INTERVAL_DAYS) return 0;
+    const profile = s.dailyProfile;
+    let mean = 0;
+    for (let i = 0; i < 24; i++) mean += profile[i]!;
+    return profile[hourOfDay(time)]! - mean / 24;
+  }
+
+  private learnProfile(time: number, volume: number, dt: number): void {
+    const s = this.s;
+    if (s.dtMean >= DENSE_INTERVAL_DAYS || dt <= 0) return;
+    const profile = s.dailyProfile;
+    const bin = hourOfDay(time);
+    // The reading was taken net of the profile; the deviation left after filtering adds to this hour's mean.
+    const weight = Math.min(0.3, (24 * dt) / PROFILE_MEMORY_DAYS);
+    profile[bin] = profile[bin]! + weight * (volume - s.v);
   }
 
   /** Two-sided CUSUM on standardised innovations; an alarm widens the rate's variance so it re-learns. */

@@ -38,5 +38,7 @@ export function isRateEstimatorState(value: unknown): value is RateEstimatorStat
   if (!(s.lastTime === null || Number.isFinite(s.lastTime))) return false;
   if (!NUMBERS.every((k) => typeof s[k] === 'number' && Number.isFinite(s[k]))) return false;
   if (!ARRAYS.every((k) => Array.isArray(s[k]))) return false;
+  if (!Array.isArray(s.dailyProfile) || s.dailyProfile.length !== 24) return false;
+  if (!s.dailyProfile.every((x) => Number.isFinite(x))) return false;
   return (s.recentTimes as unknown[]).length === (s.recentVolumes as unknown[]).length;
 }

@@ -91,6 +91,8 @@ export interface RateEstimatorState {
   /** Trusted readings since the change detector last had no evidence (for a refit on an alarm). */
   recentTimes: number[];
   recentVolumes: number[];
+  /** Dense series: mean deviation of the level by hour of day (UTC), taken out before filtering. */
+  dailyProfile: number[];
   /** Deviant readings since the last trusted one, waiting for confirmation. */
   pending: TimedVolume[];
   /** Filter state before an event accepted at once, kept one reading in case it was a typo. */
