@@ -1,3 +1,6 @@
+import { mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runInProcess as run } from '../../test/fixtures/geometry/run-cli.js';
 
@@ -62,6 +65,41 @@ describe('tankrunway eta', () => {
     const net = 0.5 * 3.785411784 * 60 - 40;
     expect(out.netOutflow).toBeCloseTo(net, 9);
     expect(out.hours).toBeCloseTo(1550 / net, 9);
+  });
+
+  it('takes the capacity and the volume unit from a tank file', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'tankrunway-eta-'));
+    try {
+      const tank = join(dir, 'ridge-pump-station.json');
+      // 48 x 96 x 60 in box: 276480 in^3 = 1196.88 gal (1 gal = 231 in^3, NIST HB 44).
+      await writeFile(
+        tank,
+        JSON.stringify({
+          units: { length: 'in', volume: 'gal' },
+          shape: 'rectangular',
+          width: 48,
+          length: 96,
+          height: 60,
+        }),
+      );
+      const out = await json([
+        '--tank',
+        tank,
+        '--volume',
+        '600',
+        '--outflow',
+        '2',
+        '--flow-unit',
+        'gal/h',
+        '--target-percent',
+        '25',
+      ]);
+      expect(out.volumeUnit).toBe('gal');
+      expect(out.target).toBeCloseTo(276480 / 231 / 4, 9);
+      expect(out.hours).toBeCloseTo((600 - 276480 / 231 / 4) / 2, 9);
+    } finally {
+      await rm(dir, { recursive: true, force: true });
+    }
   });
 
   it('says a filling tank fills, with the time to full when the capacity is known', async () => {

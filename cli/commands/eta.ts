@@ -1,5 +1,5 @@
 // `tankrunway eta --volume 3760 --inflow 1 --outflow 3 --volume-unit gal --flow-unit gal/min [--target 500]
-// [--capacity 7520 --target-percent 10] [--json]`: static time to a target (cli-contract section 3).
+// [--capacity 7520 --target-percent 10] [--tank FILE] [--json]`: static time to a target (cli-contract section 3).
 import { parseArgs } from 'node:util';
 import { netFlowEta } from '../../engine/forecast/net-flow.js';
 import {
@@ -14,6 +14,7 @@ import {
   type VolumeUnit,
 } from '../../engine/units/index.js';
 import { type CliCommand, UsageError } from '../io.js';
+import { readTankFile } from '../tank-file.js';
 
 const BARE_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i;
 
@@ -54,6 +55,7 @@ export const etaCommand: CliCommand = {
         'flow-unit': { type: 'string' },
         target: { type: 'string' },
         capacity: { type: 'string' },
+        tank: { type: 'string' },
         'target-percent': { type: 'string' },
         json: { type: 'boolean', default: false },
       },
@@ -68,7 +70,10 @@ export const etaCommand: CliCommand = {
     if (!flowUnitText)
       throw new UsageError('--flow-unit is required for bare flow numbers (e.g. gal/min, L/h)');
     const flowUnit = flowUnitOf(flowUnitText, 'flow-unit');
-    const volumeUnitText = values['volume-unit'] ?? volumeIn.unit ?? flowUnit.volume;
+    // A tank file gives the capacity and the volume unit unless they are given here.
+    const tank = values.tank === undefined ? null : await readTankFile(values.tank);
+    const volumeUnitText =
+      values['volume-unit'] ?? volumeIn.unit ?? tank?.spec.units.volume ?? flowUnit.volume;
     const volumeUnit = parseUnit(volumeUnitText);
     if (!volumeUnit.ok || volumeUnit.value.kind !== 'volume' || !isVolumeUnit(volumeUnit.value.unit))
       throw new UsageError(
@@ -85,13 +90,13 @@ export const etaCommand: CliCommand = {
     const percent = values['target-percent'];
     if (targetIn && percent !== undefined)
       throw new UsageError('give --target or --target-percent, not both');
-    const capacity = capacityIn ? litres(capacityIn) : undefined;
+    const capacity = capacityIn ? litres(capacityIn) : tank ? tank.capacity : undefined;
     let target = targetIn ? litres(targetIn) : undefined;
     if (percent !== undefined) {
       const p = Number(percent);
       if (!BARE_NUMBER.test(percent.trim()) || !(p >= 0 && p <= 100))
         throw new UsageError('--target-percent must be a number from 0 to 100');
-      if (capacity === undefined) throw new UsageError('--target-percent needs --capacity');
+      if (capacity === undefined) throw new UsageError('--target-percent needs --capacity or --tank');
       target = (capacity * p) / 100;
     }
     const eta = netFlowEta({
