@@ -56,6 +56,8 @@ describe('times in words in the team zone, across daylight-saving days', () => {
     const now = '2026-11-10T15:00:00Z';
     expect(at('at 2026-11-02 07:30 UTC', now, 'America/Chicago')).toBe('2026-11-02T07:30:00.000Z');
     expect(at('2026-11-02T07:30-05:00', now, 'Europe/Berlin')).toBe('2026-11-02T12:30:00.000Z');
+    // Europe/Berlin is on CET (UTC+1) in November.
+    expect(at('at 2026-11-02 07:30 Europe/Berlin', now, 'America/Chicago')).toBe('2026-11-02T06:30:00.000Z');
   });
 
   it('refuses a time still to come, a time without the time of day, a range and an unknown team zone', () => {

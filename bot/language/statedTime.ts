@@ -36,6 +36,16 @@ export interface TimeContext {
  * team's zone (DST handled by bot/schedule's one rule); an explicit zone or offset wins.
  */
 export function resolveStatedTime(raw: string, context: TimeContext): Result<StatedTime> {
+  // A zone named in the words ("at 07:30 Europe/Berlin") wins over the team's.
+  const named = /\s((?:[A-Za-z_]+\/)+[A-Za-z_+-]+)$/.exec(raw);
+  if (named?.[1] && checkTeamZone(named[1]).ok) {
+    const inZone = resolveInZone(raw.slice(0, named.index), { ...context, timeZone: named[1] });
+    return inZone.ok ? ok({ at: inZone.value.at, raw }) : inZone;
+  }
+  return resolveInZone(raw, context);
+}
+
+function resolveInZone(raw: string, context: TimeContext): Result<StatedTime> {
   const zone = checkTeamZone(context.timeZone);
   if (!zone.ok)
     return fail(
