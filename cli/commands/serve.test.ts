@@ -8,6 +8,8 @@ import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createBot } from '../../bot/bot.js';
 import { openStore } from '../../bot/store/index.js';
+import { startGatewayStandIn } from '../../test/discord/gatewayStandIn.js';
+import { startRestStandIn } from '../../test/discord/restStandIn.js';
 import { commandFields, signingSecret } from '../../test/slack/harness.js';
 import { postSigned, slashCommandBody } from '../../test/slack/signed-request.js';
 import { startWebApiStandIn, type WebApiStandIn } from '../../test/slack/web-api-standin.js';
@@ -140,4 +142,81 @@ describe('tankrunway serve: Slack over HTTP', () => {
     expect(code).toBe(0);
     expect(stderr).toContain('SIGTERM, stopping');
   });
+});
+
+describe('tankrunway serve: Slack and Discord in one process', () => {
+  it('registers the Discord command and routes each team digest to its own platform', async () => {
+    const start = Date.parse('2026-12-01T06:59:58Z');
+    const db = join(dir, 'both.sqlite');
+    const store = openStore(db);
+    const bot = createBot({ store });
+    const discordChannel = '730000000000000099';
+    for (const [team, channel] of [
+      ['slack:T0BOTH', 'C0BOTH'],
+      ['discord:710000000000000077', discordChannel],
+    ] as const) {
+      for (const text of [
+        'add tank T4 vertical-cylinder diameter=48in length=72in unit=gal',
+        'T4 60in',
+        'set digest 07:00 here',
+      ]) {
+        const replies = await bot.handle({
+          team,
+          channel,
+          user: 'U0ANA',
+          text,
+          receivedAt: start - 3_600_000,
+        });
+        expect(replies[0]?.kind).toBe('confirmation');
+      }
+    }
+    store.close();
+
+    const api = await startWebApiStandIn();
+    const gateway = await startGatewayStandIn({ applicationId: '700000000000000001' });
+    const rest = await startRestStandIn({ gatewayUrl: gateway.url, applicationId: '700000000000000001' });
+    const child = spawn(
+      process.execPath,
+      [bin, 'serve', '--db', db, '--tick-seconds', '0.2', '--now', new Date(start).toISOString()],
+      {
+        env: {
+          ...baseEnv,
+          SLACK_BOT_TOKEN: 'xoxb-both',
+          SLACK_SIGNING_SECRET: signingSecret,
+          SLACK_API_URL: api.apiUrl,
+          PORT: '0',
+          DISCORD_TOKEN: 'discord-test-token',
+          DISCORD_APPLICATION_ID: '700000000000000001',
+          DISCORD_API_URL: rest.apiUrl,
+        },
+        stdio: ['ignore', 'ignore', 'pipe'],
+      },
+    );
+    let stderr = '';
+    child.stderr?.on('data', (d: Buffer) => {
+      stderr += d.toString('utf8');
+    });
+    try {
+      await rest.waitFor((c) => c.method === 'PUT' && c.path.endsWith('/commands'), 20_000);
+      const slackDigest = await api.waitFor(
+        () => api.callsOf('chat.postMessage').find((c) => c.params.channel === 'C0BOTH'),
+        20_000,
+      );
+      const discordDigest = await rest.waitFor(
+        (c) => c.method === 'POST' && c.path === `/channels/${discordChannel}/messages`,
+        20_000,
+      );
+      expect(String(slackDigest.params.text)).toContain('T4');
+      expect(JSON.stringify(discordDigest.body)).toContain('T4');
+      // Each digest went only to its own platform.
+      expect(api.callsOf('chat.postMessage').some((c) => c.params.channel === discordChannel)).toBe(false);
+      expect(rest.calls.some((c) => c.path.includes('C0BOTH'))).toBe(false);
+      child.kill('SIGTERM');
+      expect(await new Promise<number | null>((resolve) => child.once('exit', resolve))).toBe(0);
+    } finally {
+      if (child.exitCode === null) child.kill('SIGKILL');
+      await Promise.all([api.close(), rest.close(), gateway.close()]);
+      if (!stderr.includes('Discord connected')) console.error(stderr);
+    }
+  }, 60_000);
 });

@@ -17,7 +17,23 @@ import { parseServeSettings, type ServeSettings } from '../serve-settings.js';
 // The platform libraries (Bolt, discord.js) and the chart renderer are loaded only when serve runs, so the
 // other commands of the CLI start fast.
 const loadSlack = () => import('../../adapters/slack/app.js');
-const loadDiscord = () => import('../../adapters/discord/discordAdapter.js');
+const loadDiscord = () => withoutSetToJson(() => import('../../adapters/discord/discordAdapter.js'));
+
+/**
+ * vega-lite (the charts) adds Set.prototype.toJSON when it loads, and discord.js's bundled copy of
+ * util.inspect fails to initialise when it finds it ("string "Set()" is not iterable", seen with
+ * vega-lite 6.4 and discord.js 14.28). The CLI loads the charts first, so discord.js is loaded with the
+ * property set aside for that moment and put back afterwards.
+ */
+async function withoutSetToJson<T>(load: () => Promise<T>): Promise<T> {
+  const patched = Object.getOwnPropertyDescriptor(Set.prototype, 'toJSON');
+  if (patched) Reflect.deleteProperty(Set.prototype, 'toJSON');
+  try {
+    return await load();
+  } finally {
+    if (patched) Object.defineProperty(Set.prototype, 'toJSON', patched);
+  }
+}
 
 const usage =
   'usage: tankrunway serve --db FILE [--tick-seconds N] [--now ISO] | serve --slack-manifest [--public-url URL]\n' +
@@ -39,6 +55,7 @@ async function startPlatforms(
   io: CliIo,
   clock: () => number,
 ): Promise<Running> {
+  const discordModule = settings.discord ? await loadDiscord() : undefined;
   const { createBot } = await import('../../bot/bot.js');
   const { renderChartPng } = await import('../../bot/replies/renderChart.js');
   const { tankNamesOf } = await import('../../bot/tank-lookup.js');
@@ -71,9 +88,9 @@ async function startPlatforms(
           : `tankrunway serve: Slack listening on port ${port} at /slack/events (command ${settings.command})\n`,
       );
     }
-    if (settings.discord) {
+    if (settings.discord && discordModule) {
       const d = settings.discord;
-      const { createDiscordAdapter } = await loadDiscord();
+      const { createDiscordAdapter } = discordModule;
       const discord = createDiscordAdapter({
         bot,
         token: d.token,
