@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { consolidateSite, type SitePlan } from './consolidateSite.js';
 import { planRefill, type RefillInput, type RefillPlan } from './planRefill.js';
@@ -94,5 +95,50 @@ describe('consolidateSite', () => {
     expect(consolidateSite([idle], 3)).toEqual([]);
     expect(consolidateSite([], 3)).toEqual([]);
     expect(consolidateSite([yardA, yardB], Number.NaN).map((o) => o.tanks.length)).toEqual([1, 1]);
+  });
+});
+
+describe('consolidateSite laws', () => {
+  it('puts every tank with an order-by in exactly one group of its own site, product and mode, within the window', () => {
+    fc.assert(
+      fc.property(
+        fc.array(
+          fc.record({
+            volume: fc.double({ min: 1100, max: 4400, noNaN: true }),
+            rate: fc.double({ min: -200, max: 300, noNaN: true }),
+            site: fc.constantFrom('North Yard', 'Ridge Pump Station', 'Mill Creek Lift Station'),
+            product: fc.constantFrom('diesel', 'caustic soda'),
+          }),
+          { maxLength: 25 },
+        ),
+        fc.double({ min: 0, max: 10, noNaN: true }),
+        (tanks, windowDays) => {
+          const plans: SitePlan[] = tanks.map((t, i) => ({
+            tankId: `t${i}`,
+            site: t.site,
+            product: t.product,
+            plan: plan({ volume: t.volume, rate: t.rate, filling: t.rate < 0 }),
+          }));
+          const orders = consolidateSite(plans, windowDays);
+          const seen = orders.flatMap((o) => o.tanks.map((l) => l.tankId)).sort();
+          const dated = plans
+            .filter((p) => p.plan.orderBy !== null)
+            .map((p) => p.tankId)
+            .sort();
+          expect(seen).toEqual(dated);
+          for (const order of orders) {
+            for (const line of order.tanks) {
+              const own = plans.find((p) => p.tankId === line.tankId)!;
+              expect([own.site, own.product, own.plan.mode]).toEqual([order.site, order.product, order.mode]);
+              expect(line.ownOrderBy - order.orderBy).toBeLessThanOrEqual(windowDays * DAY + 1);
+              if (order.mode === 'delivery') {
+                expect(line.expectedVolumeOnArrival + (line.quantity ?? 0)).toBeLessThanOrEqual(4500 + 1e-6);
+              }
+            }
+          }
+        },
+      ),
+      { numRuns: 100 },
+    );
   });
 });
