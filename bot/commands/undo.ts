@@ -25,9 +25,7 @@ export const undoHandler = defineHandler({
       {
         userId: request.user,
         action: 'undo',
-        target: 'readings',
-        targetId: entry.id,
-        detail: { undid: entry.action },
+        detail: { auditId: entry.id, undid: entry.action, target: entry.target, targetId: entry.targetId },
       },
       now,
     );
