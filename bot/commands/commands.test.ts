@@ -22,8 +22,10 @@ afterEach(() => {
   rmSync(dir, { recursive: true, force: true });
 });
 
-const say = (text: string, user = 'ann'): Promise<Reply[]> =>
-  bot.handle({ team: TEAM, channel: 'ops', user, text, receivedAt: (clock += 60_000) });
+function say(text: string, user = 'ann'): Promise<Reply[]> {
+  clock += 60_000;
+  return bot.handle({ team: TEAM, channel: 'ops', user, text, receivedAt: clock });
+}
 const tankT4 = () => say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal product=diesel');
 
 describe('command handlers', () => {
