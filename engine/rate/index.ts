@@ -1,5 +1,6 @@
 // The consumption-rate estimator: public entry points (see estimator.ts for the method and its sources).
-import { Estimator, initialState } from './estimator.js';
+import { Estimator } from './estimator.js';
+import { initialState } from './state.js';
 import { isRateEstimatorState } from './state-check.js';
 import type {
   RateChange,
@@ -28,7 +29,7 @@ export function createRateEstimator(options?: RateOptions): RateEstimator {
   return new Estimator(initialState(options));
 }
 
-export { RATE_STATE_VERSION } from './estimator.js';
+export { RATE_STATE_VERSION } from './state.js';
 export { isRateEstimatorState } from './state-check.js';
 
 /**

@@ -1,6 +1,6 @@
 // Checks a stored estimator state before it is resumed: a cache written by another version, or damaged,
 // must be rebuilt from the readings rather than resumed into wrong answers or a crash.
-import { RATE_STATE_VERSION } from './estimator.js';
+import { RATE_STATE_VERSION } from './state.js';
 import type { RateEstimatorState } from './types.js';
 
 const NUMBERS = [
