@@ -110,7 +110,9 @@ export function createInteractionHandler(deps: InteractionDeps): (interaction: I
     };
     let deferred: Deferred = 'no';
     // The bot's work runs on this one thread: in a burst, later interactions wait for earlier ones and no
-    // timer can fire meanwhile. So when others are in flight, acknowledge first, then queue for the bot.
+    // timer can fire meanwhile. So when others are in flight, acknowledge first, then queue for the bot. If
+    // that acknowledgement fails, the person sees the interaction fail and sends it again: nothing is stored
+    // for this one, so the retry is not a duplicate.
     const busy = inFlight > 0;
     inFlight++;
     let replies: Reply[];
