@@ -91,5 +91,27 @@ export function refillSimMarkdown(rows: readonly PolicySummary[]): string {
       `| ${r.family} | ${r.policy} | ${r.tanks} | ${r.tankYears.toFixed(2)} | ${perYear} | ${breachShare} | ${r.breachesOrderedAtOnce} | ${r.breachesAfterSurprise} | ${r.breachesOther} (${r.cycles > 0 ? pct(r.breachesOther / r.cycles) : 'n/a'}) | ${r.dryOuts} | ${r.overfills} (worst +${pct(r.worstOverfill)}) | ${pct(r.meanLevelAtArrival)} |`,
     );
   }
+  lines.push('', ...goalLines(rows));
   return `${lines.join('\n')}\n`;
+}
+
+/** The issue's goals, read off the "all" rows: misses within the service level, fewer deliveries. */
+function goalLines(rows: readonly PolicySummary[]): string[] {
+  const all = rows.filter((r) => r.family === 'all');
+  const planner = all.find((r) => r.policy.startsWith('planner, 95'));
+  if (!planner || planner.cycles === 0) return [];
+  const perYear = (r: PolicySummary) => r.deliveries / r.tankYears;
+  const miss = planner.breachesOther / planner.cycles;
+  const out = [
+    '| goal (all families) | measured | met |',
+    '|---|---|---|',
+    `| planner at 95%: misses ("neither") <= 5% of cycles | ${pct(miss)} (all breaches ${pct(planner.breaches / planner.cycles)}) | ${miss <= 0.05 ? 'yes' : 'no'} |`,
+  ];
+  for (const fixed of all.filter((r) => r.policy.startsWith('fixed'))) {
+    const fewer = perYear(planner) < perYear(fixed);
+    out.push(
+      `| fewer deliveries than "${fixed.policy}" | ${perYear(planner).toFixed(1)} vs ${perYear(fixed).toFixed(1)} per tank-year (breaches ${pct(planner.breaches / planner.cycles)} vs ${pct(fixed.breaches / fixed.cycles)}) | ${fewer ? 'yes' : 'no'} |`,
+    );
+  }
+  return out;
 }
