@@ -3,6 +3,7 @@
 import { parseArgs } from 'node:util';
 import { calibrationChart } from '../../engine/geometry/index.js';
 import { type CliCommand, UsageError } from '../io.js';
+import { isBareNumber } from '../number-list.js';
 import { readTankFile } from '../tank-file.js';
 
 export const chartCommand: CliCommand = {
@@ -18,7 +19,7 @@ export const chartCommand: CliCommand = {
       },
     });
     const stepText = values.step?.trim() ?? '';
-    if (!/^(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(stepText))
+    if (!isBareNumber(stepText))
       throw new UsageError("--step is required: a positive number in the tank's length unit");
     const tank = await readTankFile(values.tank);
     const chart = calibrationChart(tank, Number(stepText));

@@ -7,16 +7,14 @@ import {
   fromLitres,
   fromLitresPerDay,
   isVolumeUnit,
-  parseQuantity,
   parseUnit,
   toLitres,
   toLitresPerDay,
   type VolumeUnit,
 } from '../../engine/units/index.js';
 import { type CliCommand, UsageError } from '../io.js';
+import { isBareNumber, parseListedValue } from '../number-list.js';
 import { readTankFile } from '../tank-file.js';
-
-const BARE_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i;
 
 function flowUnitOf(text: string, option: string): FlowUnit {
   const unit = parseUnit(text);
@@ -33,12 +31,10 @@ function amount(
   kind: 'volume' | 'flow',
 ): { value: number; unit: string | null } | undefined {
   if (text === undefined) return undefined;
-  const entry = text.trim();
-  if (BARE_NUMBER.test(entry)) return { value: Number(entry), unit: null };
-  const q = parseQuantity(entry);
-  if (!q.ok) throw new UsageError(`--${option}: ${q.error}`);
-  if (q.value.kind !== kind) throw new UsageError(`--${option}: "${entry}" is not a ${kind}`);
-  return { value: q.value.value, unit: q.value.unit };
+  const entry = parseListedValue(text, option);
+  if (entry.kind !== null && entry.kind !== kind)
+    throw new UsageError(`--${option}: "${text.trim()}" is not a ${kind}`);
+  return { value: entry.value, unit: entry.unit };
 }
 
 export const etaCommand: CliCommand = {
@@ -94,7 +90,7 @@ export const etaCommand: CliCommand = {
     let target = targetIn ? litres(targetIn) : undefined;
     if (percent !== undefined) {
       const p = Number(percent);
-      if (!BARE_NUMBER.test(percent.trim()) || !(p >= 0 && p <= 100))
+      if (!isBareNumber(percent) || !(p >= 0 && p <= 100))
         throw new UsageError('--target-percent must be a number from 0 to 100');
       if (capacity === undefined) throw new UsageError('--target-percent needs --capacity or --tank');
       target = (capacity * p) / 100;

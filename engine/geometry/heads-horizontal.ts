@@ -112,17 +112,16 @@ function revolvedHeadBelowAxis(head: Head, w: number): number {
   if (w >= head.radius) return 0;
   if (head.type === 'spherical') {
     const rho = head.dishRadius;
-    return arcIntegral(0, head.depth - rho, rho, 0, Math.asin(Math.min(1, head.radius / rho)), w);
+    return arcIntegral(0, rho, 0, Math.asin(Math.min(1, head.radius / rho)), w);
   }
-  const { dishRadius, knuckleRadius: rk, depth: a, radius: R } = head;
+  const { dishRadius, knuckleRadius: rk, radius: R } = head;
   const c = R - rk;
   const alpha = Math.asin(c / (dishRadius - rk));
-  return (
-    arcIntegral(0, a - dishRadius, dishRadius, 0, alpha, w) + arcIntegral(c, 0, rk, alpha, Math.PI / 2, w)
-  );
+  return arcIntegral(0, dishRadius, 0, alpha, w) + arcIntegral(c, rk, alpha, Math.PI / 2, w);
 }
 
-function arcIntegral(rc: number, _xc: number, rho: number, t0: number, t1: number, w: number): number {
+/** One arc's share: the integral over t in [t0, t1] of segment(r(t), w) |dx/dt|, |dx/dt| = rho sin t. */
+function arcIntegral(rc: number, rho: number, t0: number, t1: number, w: number): number {
   const rEnd = rc + rho * Math.sin(t1);
   if (rEnd <= w) return 0;
   const rStart = rc + rho * Math.sin(t0);
