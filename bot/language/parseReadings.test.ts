@@ -69,7 +69,7 @@ describe('readings', () => {
     ['T4 60in at 11pm', /still to come/],
     ['T4 60in at half past nowhere', /could not read/],
     ['T5 60in', /Did you mean T4\?/],
-    ['Zed 60in', /no tank named "Zed"/],
+    ['Zed 60in', /no tank named "Zed" \(the nearest is T\d\)/],
   ])('%s is refused: %s', (text, message) => {
     expect(errorOf(text)).toMatch(message);
   });

@@ -85,6 +85,8 @@ export function unknownTankMessage(word: string, tankNames: readonly string[]): 
   const near = nearestTankName(word, tankNames);
   if (near)
     return `There is no tank named "${shown}". Did you mean ${near}? Send the message again with ${near}.`;
+  const lower = tankNames.map((n) => n.toLowerCase());
+  const nearest = tankNames[lower.indexOf(closest(word.toLowerCase(), lower))] ?? tankNames[0];
   const listed = tankNames.slice(0, 8).join(', ') + (tankNames.length > 8 ? ', …' : '');
-  return `There is no tank named "${shown}". Use one of your tanks (${listed}), or add it with \`add tank ${isTankNameShaped(word) ? word : 'NAME'} ...\`.`;
+  return `There is no tank named "${shown}" (the nearest is ${nearest}). Use one of your tanks (${listed}), or add it with \`add tank ${isTankNameShaped(word) ? word : 'NAME'} ...\`.`;
 }
