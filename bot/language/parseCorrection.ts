@@ -25,7 +25,7 @@ export function parseDeleteReading(
 }
 
 const UNIT_FIX =
-  /^(?:that|it|this|the\s+last\s+(?:one|reading))\s+(?:was|is|were|should\s+be)\s+(?:in\s+)?(.+?)$|^(?:i\s+)?meant\s+(?:in\s+)?(.+?)$|^(?:unit|units)\s+(?:was|were|is)\s+(.+?)$/i;
+  /^(?:that|it|this|the\s+last\s+(?:one|reading))\s+(?:was|were|should\s+have\s+been|should\s+be)\s+(?:in\s+)?(.+?)$|^(?:i\s+)?meant\s+(?:in\s+)?(.+?)$|^(?:unit|units)\s+(?:was|were|is)\s+(.+?)$/i;
 
 /** "that was cm", "it was in inches", "I meant gal", "that was percent". */
 export function parseUnitCorrection(text: string): Result<CommandOf<'correct-unit'>> | undefined {

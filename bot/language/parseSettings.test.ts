@@ -90,6 +90,7 @@ describe('corrections, answers, digest and help', () => {
     ['it was in inches', { type: 'correct-unit', unit: { kind: 'length', unit: 'in' } }],
     ['I meant gallons', { type: 'correct-unit', unit: { kind: 'volume', unit: 'gal' } }],
     ['that was percent', { type: 'correct-unit', unit: { kind: 'percent' } }],
+    ['that should have been mm', { type: 'correct-unit', unit: { kind: 'length', unit: 'mm' } }],
     ['yes', { type: 'confirm', answer: true }],
     ['No', { type: 'confirm', answer: false }],
     ['digest now', { type: 'digest-now' }],
