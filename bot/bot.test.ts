@@ -204,6 +204,14 @@ describe('bot.handle', () => {
     expect((await say('yes'))[0]?.kind).toBe('error');
   });
 
+  it('lets an unanswered question lapse after six hours', async () => {
+    clock = Date.parse('2026-11-20T16:00:00Z');
+    await say('add tank T9 strapping unit=L');
+    clock += 7 * 3_600_000;
+    expect((await say('0,0\n50,400'))[0]?.kind).toBe('error');
+    expect(store.pending.get(TEAM, 'c1', 'ann')).toBeUndefined();
+  });
+
   it('takes a strapping table over several messages and corrects a unit', async () => {
     await say('add tank T9 strapping unit=L');
     expect((await say('0,0\n50,400'))[0]?.headline).toMatch(/2 rows so far/);

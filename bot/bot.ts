@@ -23,6 +23,8 @@ export interface Bot {
 const MAX_TEXT = 20_000;
 
 const PENDING_KINDS: readonly AwaitingStep[] = ['strapping-rows', 'setup-answer', 'confirm-suspect'];
+/** How long an open exchange (a question, a guided setup, a strapping table) waits for its answer. */
+const PENDING_TTL_MS = 6 * 3_600_000;
 
 /** Commands that answer or carry on the sender's open exchange (the others end it). */
 const continuesExchange = (type: string): boolean =>
@@ -76,7 +78,12 @@ export function createBot(options: BotOptions): Bot {
       const team = store.teams.ensure(request.team, now, { timeZone: defaultTimeZone });
       const member = store.teams.ensureMember(request.team, request.user, request.userName ?? null, now);
       const timeZone = validZone(request.timeZone) ? request.timeZone : team.timeZone;
-      const pending = store.pending.get(request.team, request.channel, request.user);
+      let pending = store.pending.get(request.team, request.channel, request.user);
+      if (pending && now - pending.createdAt > PENDING_TTL_MS) {
+        // A question left unanswered for hours is stale: a later "yes" must not confirm it by surprise.
+        store.pending.clear(request.team, request.channel, request.user);
+        pending = undefined;
+      }
       const awaiting = PENDING_KINDS.find((k) => k === pending?.kind);
       const parseContext: ParseContext = {
         now,
