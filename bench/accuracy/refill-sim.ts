@@ -207,8 +207,10 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
     // Readings up to now, carrying the scenario's own reading error onto this tank.
     while (next < s.readings.length && s.readings[next]!.time <= t) {
       const r = s.readings[next++]!;
-      const error = r.volume - s.truth.volumeAt(r.time);
-      const latest = estimator.addReading(r.time, Math.min(cap, Math.max(0, volume + error)));
+      const latest = estimator.addReading(
+        r.time,
+        carryError(r.volume, s.truth.volumeAt(r.time), volume, cap),
+      );
       if (latest.suspect === undefined) point = latest;
       // Until a trusted reading after the delivery shows it, the team adds it to the last estimate.
       if (arrived && point && point.time > arrived.at + HOUR_MS) arrived = null;
@@ -246,4 +248,13 @@ function afterSurprise(s: Scenario, t: number): boolean {
   return (
     stepUp || s.truth.events.some((e) => e.type === 'withdrawal' && e.start <= t && e.start >= t - 2 * DAY_MS)
   );
+}
+
+/** This tank's reading with the scenario reading's error: noise as an offset, and a gross slip (a unit mixed
+ * up, digits swapped) as a ratio, so it still looks like the slip it was. */
+function carryError(reading: number, truth: number, volume: number, cap: number): number {
+  const ratio = truth > 0 ? reading / truth : 1;
+  const carried =
+    Math.abs(ratio - 1) > 0.2 && truth > 0.05 * cap ? volume * ratio : volume + (reading - truth);
+  return Math.min(cap, Math.max(0, carried));
 }
