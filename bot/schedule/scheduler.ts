@@ -89,7 +89,8 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
   const { store, deliver, clock } = options;
   const composeDigest = options.composeDigest ?? digestFromStore;
   const claimNotices = options.claimNotices === undefined ? noticesFromStore() : options.claimNotices;
-  const graceMs = Math.max(0, options.graceMinutes) * 60_000;
+  // A grace period that is not a number (a bad setting) falls back to an hour rather than to never/always.
+  const graceMs = (Number.isFinite(options.graceMinutes) ? Math.max(0, options.graceMinutes) : 60) * 60_000;
   const leaseTtlMs = options.leaseTtlMs ?? 120_000;
   const holder = options.holder ?? randomUUID();
   const log = options.log ?? (() => {});
