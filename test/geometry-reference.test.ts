@@ -10,9 +10,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildTank, type Tank } from '../engine/geometry/index.js';
 import { type CliRun, runBin, runInProcess } from './fixtures/geometry/run-cli.js';
 import {
+  CUBIC_METRES_PER_GALLON,
   type ForwardVector,
   forwardVectors,
   type InverseVector,
+  inInchesAndGallons,
   inverseVectors,
   specFor,
   withinReference,
@@ -185,4 +187,24 @@ describe('CLI against the fluids 1.0.22 reference volumes', () => {
     }
     expect(misses).toEqual([]);
   }, 120_000);
+});
+
+describe('CLI in inches and US gallons against the same reference volumes', () => {
+  it('gives every forward vector in gallons when the tank file is written in inches and gallons', async () => {
+    const misses: string[] = [];
+    for (const [i, group] of groups.entries()) {
+      const file = join(dir, `tank-${i}-in-gal.json`);
+      await writeFile(file, JSON.stringify(inInchesAndGallons(JSON.parse(group.key))));
+      const levels = group.forward.map((v) => String(v.h / 0.0254)).join(',');
+      const gallons = parsedArray(
+        await runInProcess(['volume', '--tank', file, '--levels', levels, '--json']),
+        group.family,
+      );
+      group.forward.forEach((v, k) => {
+        const m3 = gallons[k]! * CUBIC_METRES_PER_GALLON;
+        if (!withinReference(m3, v.V)) misses.push(`${v.id}: ${m3} vs ${v.V}`);
+      });
+    }
+    expect(misses).toEqual([]);
+  });
 });
