@@ -113,6 +113,27 @@ describe('dates in the team zone', () => {
     expect(formatDate(at('2026-11-02T07:30'), zone, now)).toBe('Mon 2 Nov');
   });
 
+  it('never throws or prints "Invalid" for any instant and zone (property)', () => {
+    const zones = fc.oneof(
+      fc.constantFrom('UTC', 'America/Chicago', 'Asia/Kolkata', 'Pacific/Chatham'),
+      fc.string(),
+    );
+    const instant = fc.integer({ min: -8.64e15, max: 8.64e15 });
+    fc.assert(
+      fc.property(instant, instant, zones, (time, now, z) => {
+        for (const text of [
+          formatWhen(time, now, z),
+          formatDateTime(time, z),
+          formatDate(time, z, now),
+          formatAge(time, now),
+        ]) {
+          expect(text).not.toMatch(/Invalid|NaN|undefined/);
+        }
+      }),
+      { numRuns: 300 },
+    );
+  });
+
   it('says how old a reading is', () => {
     expect(formatAge(now - 20_000, now)).toBe('just now');
     expect(formatAge(now - 5 * 60_000, now)).toBe('5 min ago');

@@ -144,7 +144,9 @@ export function formatDateTime(time: number, timeZone: string): string {
 export function calendarDaysBetween(now: number, time: number, timeZone: string): number {
   const a = inZone(now, timeZone).dt.startOf('day');
   const b = inZone(time, timeZone).dt.startOf('day');
-  return Math.round(b.diff(a, 'days').days);
+  const days = Math.round(b.diff(a, 'days').days);
+  // Only at the very ends of the representable range does a zone shift leave luxon without a date.
+  return Number.isFinite(days) ? days : Math.round((time - now) / 86_400_000);
 }
 
 /**
