@@ -83,6 +83,7 @@ interface Refill {
   thresholdAt: string | null;
   quantity: number | null;
   expectedVolumeOnArrival: number;
+  sizedOnVolume: number;
   note?: string;
 }
 
@@ -127,6 +128,10 @@ describe('tankrunway analyze --plan', () => {
     expect((r.quantity ?? 0) % 50).toBe(0);
     expect(r.quantity ?? 0).toBeGreaterThanOrEqual(100);
     expect(r.expectedVolumeOnArrival + (r.quantity ?? 0)).toBeLessThanOrEqual(1800);
+    // sized on the high side of the forecast, and as much as fits there in whole increments
+    expect(r.sizedOnVolume).toBeGreaterThanOrEqual(r.expectedVolumeOnArrival);
+    expect(r.sizedOnVolume + (r.quantity ?? 0)).toBeLessThanOrEqual(1800);
+    expect(r.sizedOnVolume + (r.quantity ?? 0) + 50).toBeGreaterThan(1800);
   });
 
   it('plans in the analysis volume unit (gallons)', async () => {
