@@ -68,12 +68,14 @@ export function parseMessage(text: string, context: ParseContext): Result<Comman
 function route(text: string, context: ParseContext): Result<Command> {
   if (text.length > MAX_MESSAGE_CHARS)
     return fail(`That message is too long (${text.length} characters); send at most ${MAX_MESSAGE_CHARS}.`);
+  // Table lines keep their tabs (a pasted spreadsheet); the command line has its spaces made single.
   const lines = normalise(text)
     .split('\n')
-    .map((l) => l.trim().replace(/\s+/g, ' '))
+    .map((l) => l.trim())
     .filter((l) => l !== '');
-  const [first, ...more] = lines;
-  if (first === undefined) return fail(`The message is empty. ${TRY}`);
+  const [firstLine, ...more] = lines;
+  if (firstLine === undefined) return fail(`The message is empty. ${TRY}`);
+  const first = firstLine.replace(/\s+/g, ' ');
   const word = first.toLowerCase().replace(/[.!]+$/, '');
 
   if (context.awaiting === 'setup-answer') {
@@ -86,9 +88,9 @@ function route(text: string, context: ParseContext): Result<Command> {
     if (CANCEL_WORDS.has(word)) return ok({ type: 'cancel' });
     if (/^[\d.+-]/.test(first) || DONE_WORDS.has(word)) return strappingRows(lines);
     // A header pasted with the rows: plain "level,volume" is skipped; one naming units cannot be checked here.
-    if (/^level\s*[,;\t]\s*volume$/i.test(first))
+    if (/^level\s*[,;\t]\s*volume$/i.test(firstLine))
       return more.length > 0 ? strappingRows(more) : ok({ type: 'strapping-rows', rows: [], done: false });
-    if (/^level\S*\s*[,;\t]\s*volume/i.test(first)) {
+    if (/^level\S*\s*[,;\t]\s*volume/i.test(firstLine)) {
       return fail(
         'Leave out the header: send the rows as bare numbers in the units given with `add tank` (one `level,volume` a line), then `done`.',
       );

@@ -102,7 +102,7 @@ describe('add tank in one line', () => {
         ],
       },
     });
-    expect(commandOf('add tank T10 strapping unit=L\nlevel,volume\n0,0\n50,400')).toMatchObject({
+    expect(commandOf('add tank T10 strapping unit=L\nlevel\tvolume\n0\t0\n50\t400')).toMatchObject({
       spec: {
         units: { length: 'cm', volume: 'L' },
         table: [
@@ -174,6 +174,11 @@ describe('strapping rows and guided answers while the bot awaits them', () => {
   });
 
   it('skips a plain header and refuses one that names units it cannot check', () => {
+    expect(commandOf('level\tvolume\n10\t52.5', awaitingRows)).toEqual({
+      type: 'strapping-rows',
+      rows: [[10, 52.5]],
+      done: false,
+    });
     expect(commandOf('level,volume\n10,52.5', awaitingRows)).toEqual({
       type: 'strapping-rows',
       rows: [[10, 52.5]],
