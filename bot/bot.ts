@@ -88,7 +88,7 @@ export function createBot(options: BotOptions): Bot {
       const parseContext: ParseContext = {
         now,
         timeZone,
-        tankNames: tankNamesOf(store.tanks.list(request.team)),
+        tankNames: tankNamesOf(store.tanks.names(request.team)),
         ...(awaiting ? { awaiting } : {}),
       };
       const parsed = parseMessage(request.text, parseContext);

@@ -2,7 +2,7 @@ import type { Store } from './store/index.js';
 import type { Tank } from './store/types.js';
 
 /** The names people may use for a team's tanks: each short code, and the full name when it differs. */
-export function tankNamesOf(tanks: readonly Tank[]): string[] {
+export function tankNamesOf(tanks: readonly Pick<Tank, 'code' | 'name'>[]): string[] {
   const names: string[] = [];
   for (const t of tanks) {
     names.push(t.code);

@@ -102,6 +102,21 @@ interface Series {
   skipped: number;
 }
 
+/** Built tanks by their stored spec: building tabulates the shape, and a question should not pay for it. */
+const geometries = new Map<string, ReturnType<typeof buildTank>>();
+const GEOMETRY_CACHE_SIZE = 512;
+
+function geometryOf(spec: unknown): ReturnType<typeof buildTank> {
+  const key = JSON.stringify(spec);
+  let built = geometries.get(key);
+  if (!built) {
+    built = buildTank(spec);
+    if (geometries.size >= GEOMETRY_CACHE_SIZE) geometries.delete(geometries.keys().next().value!);
+    geometries.set(key, built);
+  }
+  return built;
+}
+
 /** Raw readings and deliveries to litres with the tank's current shape; readings it cannot hold are skipped. */
 export function seriesOf(
   geometry: TankGeometry,
@@ -129,7 +144,7 @@ export function tankStatus(
 ): TankStatus | undefined {
   const tank = store.tanks.byId(teamId, tankId);
   if (!tank) return undefined;
-  const built = buildTank(tank.spec);
+  const built = geometryOf(tank.spec);
   const filling = tank.settings.filling === true;
   if (!built.ok) {
     return {

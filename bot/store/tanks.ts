@@ -24,6 +24,8 @@ export interface TanksRepo {
   byCode(teamId: string, code: string): Tank | undefined;
   byId(teamId: string, id: number): Tank | undefined;
   list(teamId: string): Tank[];
+  /** Codes and names of the live tanks only: what the language needs on every message, without the JSON. */
+  names(teamId: string): { code: string; name: string }[];
   update(teamId: string, id: number, patch: TankPatch, at: number): Tank | undefined;
   /** Soft delete: history stays for the audit trail; the code becomes free again. */
   remove(teamId: string, id: number, at: number): boolean;
@@ -56,6 +58,9 @@ export function tanksRepo(db: Database.Database): TanksRepo {
   );
   const list = db.prepare<[string], TankDbRow>(
     'SELECT * FROM tanks WHERE team_id = ? AND deleted_at IS NULL ORDER BY code COLLATE NOCASE',
+  );
+  const names = db.prepare<[string], { code: string; name: string }>(
+    'SELECT code, name FROM tanks WHERE team_id = ? AND deleted_at IS NULL ORDER BY code COLLATE NOCASE',
   );
   const update = db.prepare(
     `UPDATE tanks SET name = ?, site = ?, product = ?, spec = ?, settings = ?, updated_at = ?
@@ -90,6 +95,7 @@ export function tanksRepo(db: Database.Database): TanksRepo {
       return row ? toTank(row) : undefined;
     },
     list: (teamId) => list.all(teamId).map(toTank),
+    names: (teamId) => names.all(teamId),
     update: (teamId, id, patch, at) => {
       const current = repo.byId(teamId, id);
       if (!current) return undefined;
