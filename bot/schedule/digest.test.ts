@@ -1,9 +1,9 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { type TempStore, tempStore } from '../../test/schedule/helpers.js';
 import { toPlainText } from '../replies/plainText.js';
 import type { Store } from '../store/index.js';
 import { tankStatus } from '../tank-status.js';
 import { composeDigest, DIGEST_MAX_CHARS, digestFromStore } from './digest.js';
-import { type TempStore, tempStore } from './test-helpers.js';
 
 // Demo scenario of our own invention: Kestrel Valley Water Co-op (DEMO DATA).
 const DAY = 86_400_000;

@@ -1,8 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { addDigestTeam, tempStore } from '../../test/schedule/helpers.js';
 import type { Store } from '../store/index.js';
 import { type ComposeDigest, createScheduler, type Deliver, type Scheduler } from './scheduler.js';
-import { addDigestTeam, tempStore } from './test-helpers.js';
 
 const MIN = 60_000;
 const DAY = 24 * 60 * MIN;

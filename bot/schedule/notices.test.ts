@@ -1,10 +1,10 @@
 import { DateTime } from 'luxon';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { addDigestTeam, recordingSink, type TempStore, tempStore } from '../../test/schedule/helpers.js';
 import type { Store } from '../store/index.js';
 import { digestFromStore } from './digest.js';
 import { noticesFromStore } from './notices.js';
 import { createScheduler } from './scheduler.js';
-import { addDigestTeam, recordingSink, type TempStore, tempStore } from './test-helpers.js';
 
 // Demo scenario of our own invention (Kestrel Valley Water Co-op).
 const HOUR = 3_600_000;

@@ -1,5 +1,6 @@
 import { DateTime } from 'luxon';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { addDigestTeam, recordingSink, type TempStore, tempStore } from '../../test/schedule/helpers.js';
 import type { Store } from '../store/index.js';
 import {
   type ComposeDigest,
@@ -7,7 +8,6 @@ import {
   type ScheduleEvent,
   type SchedulerOptions,
 } from './scheduler.js';
-import { addDigestTeam, recordingSink, type TempStore, tempStore } from './test-helpers.js';
 
 // The composer is injected so these tests look at timing and exactly-once alone; digest.test.ts checks content.
 const headlineDigest: ComposeDigest = (_store, team, now) => ({

@@ -2,9 +2,9 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { Reply } from '../replies/reply.js';
-import { openStore, type Store } from '../store/index.js';
-import type { Deliver, DeliveryMeta } from './scheduler.js';
+import type { Reply } from '../../bot/replies/reply.js';
+import type { Deliver, DeliveryMeta } from '../../bot/schedule/scheduler.js';
+import { openStore, type Store } from '../../bot/store/index.js';
 
 export interface TempStore {
   path: string;
