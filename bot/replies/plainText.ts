@@ -37,22 +37,23 @@ export function factsToText(facts: Fact[]): string[] {
  */
 export function tableToText(table: Table): string[] {
   // A blank row would print as a blank line, which reads as the end of the table.
-  const rows = table.rows.filter((r) => r.some((c) => oneLine(c).trim() !== ''));
-  const columnCount = Math.max(table.columns.length, ...rows.map((r) => r.length));
-  const cell = (row: string[], i: number) => oneLine(row[i] ?? '');
-  const header = Array.from({ length: columnCount }, (_, i) => cell(table.columns, i));
-  const widths = header.map((h, i) => Math.max(width(h), ...rows.map((r) => width(cell(r, i)))));
+  const kept = table.rows.filter((r) => r.some((c) => c.trim() !== ''));
+  // Every cell folded to one line once, every row padded to the same width.
+  const columnCount = Math.max(table.columns.length, ...kept.map((r) => r.length));
+  const fill = (row: string[]) => Array.from({ length: columnCount }, (_, i) => oneLine(row[i] ?? ''));
+  const header = fill(table.columns);
+  const rows = kept.map(fill);
+  const widths = header.map((h, i) => Math.max(width(h), ...rows.map((r) => width(r[i] ?? ''))));
   const numeric = header.map(
-    (_, i) => rows.length > 0 && rows.every((r) => cell(r, i) === '' || looksNumeric(cell(r, i))),
+    (_, i) => rows.length > 0 && rows.every((r) => r[i] === '' || looksNumeric(r[i] ?? '')),
   );
   const line = (row: string[]) =>
     row
       .map((c, i) => pad(c, widths[i] ?? 0, numeric[i] ?? false))
       .join('  ')
       .trimEnd();
-  const lines = rows.map((r) => line(Array.from({ length: columnCount }, (_, i) => cell(r, i))));
   const rule = widths.map((w) => '-'.repeat(w)).join('  ');
-  return [line(header), rule, ...lines];
+  return [line(header), rule, ...rows.map(line)];
 }
 
 /** The whole reply as plain text, blocks separated by a blank line; never ends with a newline. */
