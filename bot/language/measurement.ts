@@ -42,7 +42,8 @@ export function parseVolume(text: string, what = 'a volume'): Result<Volume> {
 }
 
 function nonNegative<T>(value: number, text: string, what: string, build: (v: number) => T): Result<T> {
-  if (!Number.isFinite(value)) return fail(`"${text}" is not a number I can use for ${what}.`);
+  if (!Number.isFinite(value))
+    return fail(`"${text}" is not a number I can use for ${what}; give a plain number like 60in.`);
   if (value < 0) return fail(`${what} cannot be negative ("${text}"); give the number as measured.`);
   return ok(build(value));
 }
@@ -55,7 +56,7 @@ export function parsePercent(text: string, what = 'a percent'): Result<number> {
   }
   const { value } = quantity.value;
   if (!Number.isFinite(value) || value < 0 || value > 100) {
-    return fail(`${what} must be between 0% and 100% ("${text}").`);
+    return fail(`${what} must be between 0% and 100% ("${text}"); check the gauge and send it again.`);
   }
   return ok(value);
 }

@@ -150,7 +150,8 @@ function dimensionSpec(
       return fail(`A ${shape} tank takes ${needs.map((n) => `${n}=`).join(', ')}; leave out ${dim}=.`);
     const length = parseLength(text, `${dim}=`);
     if (!length.ok) return length;
-    if (length.value.value <= 0) return fail(`${dim}= must be more than 0 (got "${text}").`);
+    if (length.value.value <= 0)
+      return fail(`${dim}= must be more than 0 (got "${text}"); give the size, e.g. ${dim}=48in.`);
     unit ??= length.value.unit;
     dims[dim] = inUnit(length.value.value, length.value.unit, unit);
   }

@@ -63,7 +63,7 @@ export function parseStrappingLines(
     if (!level.ok) return fail(`Line ${index + 1}, level ${level.error}; ${ROW_HINT}.`);
     if (!volume.ok) return fail(`Line ${index + 1}, volume ${volume.error}; ${ROW_HINT}.`);
     if (level.value < 0 || volume.value < 0)
-      return fail(`Line ${index + 1} ("${line}") has a negative value.`);
+      return fail(`Line ${index + 1} ("${line}") has a negative value; check the row.`);
     if (level.value <= last) {
       return fail(
         `Line ${index + 1} ("${line}"): levels must rise from row to row; check the order of the table.`,

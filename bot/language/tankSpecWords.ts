@@ -126,7 +126,8 @@ export function readHeads(text: string, unit: () => LengthUnitWord): Result<Head
       if (option.toLowerCase() === 'inward') head.inward = true;
       else if (param) {
         const value = Number(param[2]);
-        if (!(value > 0)) return fail(`heads: ${option} must be a positive number.`);
+        if (!(value > 0))
+          return fail(`heads: ${option} must be a positive number; write it like f=1:k=0.06.`);
         if ((param[1] ?? '').toLowerCase() === 'f') head.f = value;
         else head.k = value;
       } else {
