@@ -3,14 +3,7 @@
  * `tankStatus` (bot/tank-status.ts) and never from the engine directly. Pure: `now` is an argument.
  */
 import { DateTime } from 'luxon';
-import {
-  formatChange,
-  formatDate,
-  formatDuration,
-  formatPercent,
-  formatVolume,
-  formatWhen,
-} from '../replies/format.js';
+import { formatChange, formatDate, formatDuration, formatPercent, formatWhen } from '../replies/format.js';
 import type { TankStatus } from '../tank-status.js';
 
 const HOUR = 3_600_000;
