@@ -74,7 +74,7 @@ export interface TankStatus {
   /** How many readings the figures rest on (all history, not only the chart's window). */
   readingCount: number;
   /**
-   * Confirmed readings of the last 120 days (at most the newest 1,000) as volumes in the display unit, in
+   * Confirmed readings of the last 120 days (at most the newest 720) as volumes in the display unit, in
    * time order: the chart's history.
    */
   history: { time: number; volume: number }[];
@@ -285,8 +285,8 @@ const STATE_VERSION = createRateEstimator().toJSON().version;
 
 /** How far back the chart's history and the "change since" reach, from the newest reading. */
 const HISTORY_WINDOW_MS = 120 * DAY_MS;
-/** ...and at most this many readings: six weeks of an hourly sensor, more than a phone's chart can show. */
-const HISTORY_LIMIT = 1000;
+/** ...and at most this many readings: a month of an hourly sensor, more than a phone's chart can show. */
+const HISTORY_LIMIT = 720;
 
 interface RateResult {
   events: readonly TankEvent[];
