@@ -80,58 +80,63 @@ describe('tankStatus with the rate cache', () => {
     let n = 0;
     let resumed = 0;
     fc.assert(
-      fc.property(fc.array(op, { minLength: 1, maxLength: 40 }), (ops) => {
-        const tank = store.tanks.add('t', { code: `T${n++}`, spec }, 'u', T0);
-        const now = T0 + 500 * HOUR;
-        for (const o of ops) {
-          if (o.kind === 'read') {
-            const value = Math.round(o.level * 10) / 10;
-            store.readings.add(
-              't',
-              {
-                tankId: tank.id,
-                time: T0 + o.hours * HOUR,
-                kind: 'level',
-                value,
-                unit: 'in',
-                rawText: `r ${value}`,
-                userId: 'u',
-              },
-              T0,
-            );
-          } else if (o.kind === 'deliver') {
-            store.deliveries.add(
-              't',
-              {
-                tankId: tank.id,
-                time: T0 + o.hours * HOUR,
-                volume: o.gal,
-                unit: 'gal',
-                rawText: 'd',
-                userId: 'u',
-              },
-              T0,
-            );
-          } else if (o.kind === 'delete' || o.kind === 'hold') {
-            const newest = store.readings.newest('t', 1, tank.id)[0];
-            if (newest && o.kind === 'delete') store.readings.softDelete('t', newest.id, T0);
-            if (newest && o.kind === 'hold') store.readings.setStatus('t', newest.id, 'held');
-          } else if (o.kind === 'reshape') {
-            store.tanks.update('t', tank.id, { spec: { ...spec, diameter: o.diameter } }, T0);
-          } else {
-            tankStatus(store, 't', tank.id, now);
+      fc.property(
+        fc.array(op, { minLength: 1, maxLength: 40 }),
+        fc.array(op, { maxLength: 4 }),
+        (ops, more) => {
+          const tank = store.tanks.add('t', { code: `T${n++}`, spec }, 'u', T0);
+          const now = T0 + 500 * HOUR;
+          // The ops, a question (which leaves a cache), a few more ops (which may or may not drop it).
+          for (const o of [...ops, { kind: 'ask' as const }, ...more]) {
+            if (o.kind === 'read') {
+              const value = Math.round(o.level * 10) / 10;
+              store.readings.add(
+                't',
+                {
+                  tankId: tank.id,
+                  time: T0 + o.hours * HOUR,
+                  kind: 'level',
+                  value,
+                  unit: 'in',
+                  rawText: `r ${value}`,
+                  userId: 'u',
+                },
+                T0,
+              );
+            } else if (o.kind === 'deliver') {
+              store.deliveries.add(
+                't',
+                {
+                  tankId: tank.id,
+                  time: T0 + o.hours * HOUR,
+                  volume: o.gal,
+                  unit: 'gal',
+                  rawText: 'd',
+                  userId: 'u',
+                },
+                T0,
+              );
+            } else if (o.kind === 'delete' || o.kind === 'hold') {
+              const newest = store.readings.newest('t', 1, tank.id)[0];
+              if (newest && o.kind === 'delete') store.readings.softDelete('t', newest.id, T0);
+              if (newest && o.kind === 'hold') store.readings.setStatus('t', newest.id, 'held');
+            } else if (o.kind === 'reshape') {
+              store.tanks.update('t', tank.id, { spec: { ...spec, diameter: o.diameter } }, T0);
+            } else {
+              tankStatus(store, 't', tank.id, now);
+            }
           }
-        }
-        if (store.rateCache.get('t', tank.id)) resumed++;
-        const cached = figures(tankStatus(store, 't', tank.id, now)!);
-        store.rateCache.drop('t', tank.id);
-        const scratch = figures(tankStatus(store, 't', tank.id, now)!);
-        expect(cached).toEqual(scratch);
-      }),
+          if (store.rateCache.get('t', tank.id)) resumed++;
+          const cached = figures(tankStatus(store, 't', tank.id, now)!);
+          store.rateCache.drop('t', tank.id);
+          const scratch = figures(tankStatus(store, 't', tank.id, now)!);
+          expect(cached).toEqual(scratch);
+        },
+      ),
       { numRuns: Number(process.env.CACHE_RUNS ?? 60) },
     );
     // The comparison is only worth something if the cache was there to resume from.
-    expect(resumed).toBeGreaterThan(10);
+    expect(resumed).toBeGreaterThanOrEqual(3);
   });
 
   it('is dropped by the store when a reading arrives back in time', () => {
