@@ -182,6 +182,15 @@ describe('checked conversions and friendly errors', () => {
     expect(zero.volumeAt(0.7)).toBe(flat.volumeAt(0.7));
   });
 
+  it('hands back the same frozen tank for the same JSON (a small cache), and a new one for another', () => {
+    const spec = { units: m, shape: 'sphere', diameter: 3 };
+    const first = tank(spec);
+    expect(tank({ ...spec })).toBe(first);
+    expect(Object.isFrozen(first.spec)).toBe(true);
+    expect(Object.isFrozen(first.spec.units)).toBe(true);
+    expect(tank({ ...spec, diameter: 4 })).not.toBe(first);
+  });
+
   it('accepts the unit words people write in a tank file', () => {
     const r = buildTank({ units: { length: 'inches', volume: 'gallons' }, shape: 'sphere', diameter: 10 });
     expect(r.ok && r.value.spec.units).toEqual({ length: 'in', volume: 'gal' });

@@ -22,8 +22,31 @@ export interface Tank {
 // Levels at which the volume is tabulated once per tank, so each inverse starts from a tight bracket.
 const BRACKETS = 512;
 
+// Tanks are immutable and building one costs up to a few milliseconds (a numerically integrated head is
+// tabulated once), while callers such as the bot rebuild the same few tanks for every message: keep the
+// most recent ones, keyed by their JSON.
+const CACHE_SIZE = 64;
+const recent = new Map<string, Result<Tank>>();
+
 /** Validates a tank JSON value and builds its Tank; the error says what to fix. */
 export function buildTank(input: unknown): Result<Tank> {
+  let key: string | undefined;
+  try {
+    key = JSON.stringify(input);
+  } catch {
+    key = undefined; // cyclic or BigInt input: not cacheable, and validation will refuse it anyway
+  }
+  const cached = key === undefined ? undefined : recent.get(key);
+  if (cached) return cached;
+  const built = buildTankUncached(input);
+  if (key !== undefined && built.ok) {
+    recent.set(key, built);
+    if (recent.size > CACHE_SIZE) recent.delete(recent.keys().next().value as string);
+  }
+  return built;
+}
+
+function buildTankUncached(input: unknown): Result<Tank> {
   const spec = parseTankSpec(input);
   if (!spec.ok) return spec;
   const model = shapeModel(spec.value);
@@ -68,7 +91,16 @@ function tankFromModel(spec: TankSpec, model: ShapeModel): Tank {
       volumes[hi]! - v,
     );
   };
-  return { spec, fullHeight: H, capacity, lowestLevel: floor, volumeAt, levelAt };
+  // Shared from the cache, so nobody may change it underneath another caller.
+  return { spec: deepFreeze(spec), fullHeight: H, capacity, lowestLevel: floor, volumeAt, levelAt };
+}
+
+function deepFreeze<T>(value: T): T {
+  if (value && typeof value === 'object') {
+    for (const inner of Object.values(value)) deepFreeze(inner);
+    Object.freeze(value);
+  }
+  return value;
 }
 
 const fmt = (x: number) => Number(x.toPrecision(6)).toString();
