@@ -197,4 +197,36 @@ describe('fuzzing the language', () => {
       { numRuns: 100 },
     );
   });
+
+  // A law: spacing and the case of the tank name do not change what a message means (only its raw text).
+  it('reads the same command through extra spaces and any case of the tank name', () => {
+    const forms = fc.constantFrom(
+      'T4 60in at 2026-11-02 07:30',
+      'delivered 150 gal to T4 ticket 8812',
+      'T4 ullage 14in yesterday 4pm',
+      'set T4 threshold 20%',
+      'how long does T4 last?',
+      'delete the 7:30 reading of T4',
+    );
+    const stripRaw = (value: unknown): unknown =>
+      JSON.parse(JSON.stringify(value, (k, v) => (k === 'raw' ? undefined : v)));
+    fc.assert(
+      fc.property(
+        forms,
+        fc.array(fc.integer({ min: 1, max: 4 }), { minLength: 12, maxLength: 12 }),
+        fc.boolean(),
+        (text, gaps, lower) => {
+          const words = text.split(' ');
+          const spaced = words
+            .map((w, i) => (lower && w.startsWith('T4') ? w.toLowerCase() : w) + ' '.repeat(gaps[i] ?? 1))
+            .join('');
+          const a = parseMessage(text, exampleContext);
+          const b = parseMessage(`  ${spaced}`, exampleContext);
+          expect(a.ok && b.ok).toBe(true);
+          if (a.ok && b.ok) expect(stripRaw(b.value)).toEqual(stripRaw(a.value));
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
 });
