@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
   modalErrors,
@@ -82,5 +83,31 @@ describe('settings modal', () => {
       ok: true,
       value: ['set digest 07:00 weekdays here'],
     });
+  });
+});
+
+describe('modal fields cannot change what the message does', () => {
+  // Law: whatever a person types in the free-text fields, the setup form is read by the bot's own parser as
+  // one add-tank of the named tank, or refused; never as another command.
+  it('the setup message parses as add-tank of that tank or not at all', async () => {
+    const { parseMessage } = await import('../../bot/language/index.js');
+    const context = { now: Date.UTC(2026, 11, 2, 8), timeZone: 'UTC', tankNames: ['T4'] };
+    fc.assert(
+      fc.property(
+        fc.string({ maxLength: 40 }),
+        fc.string({ maxLength: 40 }),
+        fc.string({ maxLength: 12 }),
+        (product, site, diameter) => {
+          const message = setupMessage({
+            ...typed({ tank: 'T9', product, site, diameter, length: '72in' }),
+            ...chosen({ shape: 'vertical-cylinder', unit: 'gal' }),
+          });
+          if (!message.ok) return false;
+          const parsed = parseMessage(message.value, context);
+          return !parsed.ok || (parsed.value.type === 'add-tank' && parsed.value.tank === 'T9');
+        },
+      ),
+      { numRuns: 200 },
+    );
   });
 });
