@@ -71,7 +71,7 @@ export class Estimator implements RateEstimator {
     const problem = this.rejectReason(time, reading);
     if (problem) {
       if (Number.isFinite(time)) s.suspects.push({ time, reason: problem });
-      return rejectedPoint(s.lastPoint, time, problem);
+      return rejectedPoint(s, time, problem);
     }
     s.count++;
     if (reading > s.scale) s.scale = reading;
@@ -299,15 +299,11 @@ export class Estimator implements RateEstimator {
 
   private pendingPoint(time: number, pr: Prediction, reason: string): RatePoint {
     const s = this.s;
-    const p = pointFrom(s, time, pr.v, pr.p11, reason);
-    s.lastPoint = p;
-    return p;
+    return pointFrom(s, time, pr.v, pr.p11, reason);
   }
 
   private point(time: number, reason: string | undefined): RatePoint {
     const s = this.s;
-    const p = pointFrom(s, time, s.v, s.p11, reason);
-    s.lastPoint = p;
-    return p;
+    return pointFrom(s, time, s.v, s.p11, reason);
   }
 }

@@ -29,18 +29,20 @@ export function pointFrom(
   return point;
 }
 
-/** The point for a reading that was not used: the last estimate, unchanged, with the reason. */
-export function rejectedPoint(last: RatePoint | null, time: number, reason: string): RatePoint {
-  if (last) return { ...last, time: Number.isFinite(time) ? time : last.time, suspect: reason };
-  return {
-    time: Number.isFinite(time) ? time : 0,
-    volume: 0,
-    rate: 0,
-    rateLow: 0,
-    rateHigh: 0,
-    rateSigma: 0,
-    suspect: reason,
-    readings: 0,
-    basisDays: 0,
-  };
+/** The point for a reading that was not used: the filter's last estimate, unchanged, with the reason. */
+export function rejectedPoint(s: RateEstimatorState, time: number, reason: string): RatePoint {
+  if (s.lastTime === null) {
+    return {
+      time: Number.isFinite(time) ? time : 0,
+      volume: 0,
+      rate: 0,
+      rateLow: 0,
+      rateHigh: 0,
+      rateSigma: 0,
+      suspect: reason,
+      readings: 0,
+      basisDays: 0,
+    };
+  }
+  return pointFrom(s, Number.isFinite(time) ? time : s.lastTime, s.v, s.p11, reason);
 }

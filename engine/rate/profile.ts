@@ -5,17 +5,18 @@
 import * as tuning from './tuning.js';
 import type { RateEstimatorState } from './types.js';
 
-const { DAY_MS, DENSE_INTERVAL_DAYS, PROFILE_MEMORY_DAYS } = tuning;
+const { DENSE_INTERVAL_DAYS, PROFILE_MEMORY_DAYS } = tuning;
 
-const hourOfDay = (time: number) => Math.floor((((time % DAY_MS) + DAY_MS) % DAY_MS) / 3_600_000);
+// Hour of the UTC day; one division and a small modulo (the hot path runs it for every dense reading).
+const hourOfDay = (time: number) => {
+  const hour = Math.floor(time / 3_600_000) % 24;
+  return hour < 0 ? hour + 24 : hour;
+};
 
 /** The profile's deviation at this hour (zero-mean over the day); zero unless the series is dense. */
 export function profileAt(s: RateEstimatorState, time: number): number {
   if (s.dtMean === 0 || s.dtMean >= DENSE_INTERVAL_DAYS) return 0;
-  const profile = s.dailyProfile;
-  let mean = 0;
-  for (let i = 0; i < 24; i++) mean += profile[i]!;
-  return profile[hourOfDay(time)]! - mean / 24;
+  return s.dailyProfile[hourOfDay(time)]! - s.dailyProfileSum / 24;
 }
 
 /** `volume` was taken net of the profile; what the filter leaves of it adds to this hour's mean. */
@@ -24,5 +25,7 @@ export function learnProfile(s: RateEstimatorState, time: number, volume: number
   const profile = s.dailyProfile;
   const bin = hourOfDay(time);
   const weight = Math.min(0.3, (24 * dt) / PROFILE_MEMORY_DAYS);
-  profile[bin] = profile[bin]! + weight * (volume - s.v);
+  const step = weight * (volume - s.v);
+  profile[bin] = profile[bin]! + step;
+  s.dailyProfileSum += step;
 }

@@ -19,6 +19,7 @@ const NUMBERS = [
   'cusumNegStart',
   'basisStart',
   'basisCount',
+  'dailyProfileSum',
 ] as const;
 const ARRAYS = [
   'recentTimes',

@@ -1,8 +1,8 @@
 // The estimator's state: its initial value, its version, and the measurement noise derived from it.
 import type { RateEstimatorState, RateOptions } from './types.js';
 
-/** Bumped whenever the state's shape or meaning changes (2: recent readings kept for refits; 3: daily profile). */
-export const RATE_STATE_VERSION = 3;
+/** Bumped whenever the state's shape or meaning changes (2: recent readings kept for refits; 3: daily profile; 4: its running sum). */
+export const RATE_STATE_VERSION = 4;
 
 export function initialState(options: RateOptions = {}): RateEstimatorState {
   const capacity = options.capacity !== undefined && options.capacity > 0 ? options.capacity : null;
@@ -29,11 +29,11 @@ export function initialState(options: RateOptions = {}): RateEstimatorState {
     recentTimes: [],
     recentVolumes: [],
     dailyProfile: new Array(24).fill(0),
+    dailyProfileSum: 0,
     pending: [],
     undo: null,
     loggedPending: [],
     changePending: null,
-    lastPoint: null,
     events: [],
     changes: [],
     suspects: [],

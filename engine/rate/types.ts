@@ -93,13 +93,14 @@ export interface RateEstimatorState {
   recentVolumes: number[];
   /** Dense series: mean deviation of the level by hour of day (UTC), taken out before filtering. */
   dailyProfile: number[];
+  /** Sum of dailyProfile, kept so the zero-mean profile costs O(1) per reading. */
+  dailyProfileSum: number;
   /** Deviant readings since the last trusted one, waiting for confirmation. */
   pending: TimedVolume[];
   /** Filter state before an event accepted at once, kept one reading in case it was a typo. */
   undo: UndoState | null;
   loggedPending: TimedVolume[];
   changePending: { at: number; from: number; alarm: number; count: number } | null;
-  lastPoint: RatePoint | null;
   events: TankEvent[];
   changes: RateChange[];
   suspects: SuspectReading[];
