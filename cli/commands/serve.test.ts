@@ -12,6 +12,7 @@ import { startGatewayStandIn } from '../../test/discord/gatewayStandIn.js';
 import { startRestStandIn } from '../../test/discord/restStandIn.js';
 import { commandFields, signingSecret } from '../../test/slack/harness.js';
 import { postSigned, slashCommandBody } from '../../test/slack/signed-request.js';
+import { startSocketStandIn } from '../../test/slack/socket-standin.js';
 import { startWebApiStandIn, type WebApiStandIn } from '../../test/slack/web-api-standin.js';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
@@ -217,6 +218,41 @@ describe('tankrunway serve: Slack and Discord in one process', () => {
       if (child.exitCode === null) child.kill('SIGKILL');
       await Promise.all([api.close(), rest.close(), gateway.close()]);
       if (!stderr.includes('Discord connected')) console.error(stderr);
+    }
+  }, 60_000);
+});
+
+describe('tankrunway serve: Slack over Socket Mode', () => {
+  it('connects out with the app-level token, answers a command envelope, and needs no signing secret', async () => {
+    const api = await startWebApiStandIn();
+    const socket = await startSocketStandIn();
+    api.socketUrl = socket.url;
+    const child = spawn(process.execPath, [bin, 'serve', '--db', join(dir, 'socket.sqlite')], {
+      env: {
+        ...baseEnv,
+        SLACK_BOT_TOKEN: 'xoxb-sock',
+        SLACK_APP_TOKEN: 'xapp-1-sock',
+        SLACK_API_URL: api.apiUrl,
+      },
+      stdio: ['ignore', 'ignore', 'pipe'],
+    });
+    let stderr = '';
+    child.stderr?.on('data', (d: Buffer) => {
+      stderr += d.toString('utf8');
+    });
+    try {
+      await api.waitFor(() => stderr.includes('Socket Mode'), 20_000);
+      const c = { team: 'T0SOCK', channel: 'C0SOCK', user: 'U0BEN', text: 'help', id: 'sock-help' };
+      const ack = await socket.push('slash_commands', commandFields(c, api.responseUrl(c.id)));
+      expect(ack.envelope_id).toBeDefined();
+      const help = await api.waitFor(() => api.responses.find((r) => r.id === c.id), 10_000);
+      expect(help.body.response_type).toBe('ephemeral');
+      expect(api.callsOf('apps.connections.open')[0]?.token).toBe('xapp-1-sock');
+      child.kill('SIGTERM');
+      expect(await new Promise<number | null>((resolve) => child.once('exit', resolve))).toBe(0);
+    } finally {
+      if (child.exitCode === null) child.kill('SIGKILL');
+      await Promise.all([api.close(), socket.close()]);
     }
   }, 60_000);
 });
