@@ -71,5 +71,6 @@ describe('times in words in the team zone, across daylight-saving days', () => {
     expect(error('from 7 to 9am')).toMatch(/range|could not read/);
     expect(error('at 7:30', { ...context, timeZone: 'Mars/Olympus' })).toMatch(/set time zone/);
     expect(error('at 7:31')).toBe('parsed');
+    expect(error(`at ${'at '.repeat(40)}7:30`)).toMatch(/too long for a time/);
   });
 });

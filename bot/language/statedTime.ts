@@ -26,6 +26,8 @@ const FILLER = /\b(?:at|on|around|about|approx)\b|@|,/gi;
 
 const HOW_TO_WRITE = 'write it like `at 7:30`, `yesterday 4pm` or `at 2026-11-02 07:30`';
 
+const MAX_TIME_CHARS = 80;
+
 export interface TimeContext {
   now: number;
   timeZone: string;
@@ -36,6 +38,9 @@ export interface TimeContext {
  * team's zone (DST handled by bot/schedule's one rule); an explicit zone or offset wins.
  */
 export function resolveStatedTime(raw: string, context: TimeContext): Result<StatedTime> {
+  // Real time phrases are short; a long run of words is not one, and the date library is slow on it.
+  if (raw.length > MAX_TIME_CHARS)
+    return fail(`"${raw.slice(0, 40)}…" is too long for a time; ${HOW_TO_WRITE}.`);
   // A zone named in the words ("at 07:30 Europe/Berlin") wins over the team's.
   const named = /\s((?:[A-Za-z_]+\/)+[A-Za-z_+-]+)$/.exec(raw);
   if (named?.[1] && checkTeamZone(named[1]).ok) {
