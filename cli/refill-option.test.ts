@@ -83,7 +83,6 @@ interface Refill {
   thresholdAt: string | null;
   quantity: number | null;
   expectedVolumeOnArrival: number;
-  sizedOnVolume: number;
   note?: string;
 }
 
@@ -128,10 +127,8 @@ describe('tankrunway analyze --plan', () => {
     expect((r.quantity ?? 0) % 50).toBe(0);
     expect(r.quantity ?? 0).toBeGreaterThanOrEqual(100);
     expect(r.expectedVolumeOnArrival + (r.quantity ?? 0)).toBeLessThanOrEqual(1800);
-    // sized on the high side of the forecast, and as much as fits there in whole increments
-    expect(r.sizedOnVolume).toBeGreaterThanOrEqual(r.expectedVolumeOnArrival);
-    expect(r.sizedOnVolume + (r.quantity ?? 0)).toBeLessThanOrEqual(1800);
-    expect(r.sizedOnVolume + (r.quantity ?? 0) + 50).toBeGreaterThan(1800);
+    // to the safe fill level from the expected volume: as much as fits in whole increments
+    expect(r.expectedVolumeOnArrival + (r.quantity ?? 0) + 50).toBeGreaterThan(1800);
   });
 
   it('plans in the analysis volume unit (gallons)', async () => {

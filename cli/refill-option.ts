@@ -36,8 +36,6 @@ export interface RefillJson {
   earliestDelivery: string;
   quantity: number | null;
   expectedVolumeOnArrival: number;
-  /** The volume the quantity was sized on: the high side of the forecast on arrival (a pick-up: the low side). */
-  sizedOnVolume: number;
   reorderPoint: number;
   safetyStock: number;
   /** Why the quantity is 0 or missing, in words. */
@@ -135,7 +133,6 @@ function toJson(plan: RefillPlan, unit: VolumeUnit): RefillJson {
     earliestDelivery: isoTime(Math.round(plan.earliestDelivery)),
     quantity: plan.quantity === null ? null : out(plan.quantity),
     expectedVolumeOnArrival: out(plan.expectedVolumeOnArrival),
-    sizedOnVolume: out(plan.sizing.sizedOnVolume),
     reorderPoint: out(plan.reorderPoint),
     safetyStock: out(plan.safetyStock),
     ...(note ? { note } : {}),

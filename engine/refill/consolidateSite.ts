@@ -90,12 +90,11 @@ function lineAt({ tankId, plan }: SitePlan, arrivalAt: number): SiteOrderLine {
   const days = (sizing.arrivalAt - arrivalAt) / DAY_MS;
   // Earlier arrival: an emptying tank still holds more (less room), a filling one holds less to take.
   const volume = Math.max(0, plan.expectedVolumeOnArrival + sizing.ratePerDay * days);
-  const sizedOn = Math.max(0, sizing.sizedOnVolume + sizing.ratePerDay * days);
   const capped =
     plan.safeFillVolume === null || plan.mode === 'pick-up' ? volume : Math.min(volume, plan.safeFillVolume);
-  // Sized like the tank's own plan: on the high side of the forecast (a pick-up: the low side).
+  // Sized like the tank's own plan: to the safe fill level from the expected volume (a pick-up: all of it).
   const room =
-    plan.mode === 'pick-up' ? sizedOn : plan.safeFillVolume === null ? null : plan.safeFillVolume - sizedOn;
+    plan.mode === 'pick-up' ? volume : plan.safeFillVolume === null ? null : plan.safeFillVolume - capped;
   const quantity = room === null ? null : orderQuantity(room, 0, sizing.orderIncrement).quantity;
   return { tankId, quantity, expectedVolumeOnArrival: capped, ownOrderBy: plan.orderBy ?? arrivalAt };
 }

@@ -91,12 +91,11 @@ describe('planRefill', () => {
     expect(p.safetyStock).toBeGreaterThan(0);
   });
 
-  it('sizes the order on the high side of the forecast, so a tank that used less is not overfilled', () => {
-    const sure = plan(ridge);
-    const careful = plan({ ...at95, rateSigma: 5 });
-    expect(careful.sizing.sizedOnVolume).toBeGreaterThan(careful.expectedVolumeOnArrival);
-    expect((careful.quantity ?? 0) + careful.sizing.sizedOnVolume).toBeLessThanOrEqual(1800);
-    expect(careful.quantity ?? 0).toBeLessThanOrEqual(sure.quantity ?? 0);
+  it('sizes the order to the safe fill level from the expected volume on arrival, in whole increments', () => {
+    const p = plan({ ...at95, rateSigma: 5 });
+    const room = 1800 - p.expectedVolumeOnArrival;
+    expect(p.quantity ?? 0).toBeLessThanOrEqual(room);
+    expect((p.quantity ?? 0) + 250).toBeGreaterThan(room);
   });
 
   it('says order now when the latest order time has passed, and sizes the order for the earliest delivery', () => {

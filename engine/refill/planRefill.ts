@@ -3,8 +3,7 @@
 import { fail, ok, type Result } from '../result.js';
 import { arrivalDay, endOfDay, latestOrderFor, startOfDay } from './deliveryCalendar.js';
 import { orderQuantity, type QuantityIssue } from './orderQuantity.js';
-import { daysToThreshold, reorderPoint, useSpread } from './reorderPoint.js';
-import { serviceFactor } from './serviceFactor.js';
+import { daysToThreshold, reorderPoint } from './reorderPoint.js';
 import { parseRefillSettings, type RefillSettings, type RefillSettingsInput } from './settings.js';
 
 const DAY_MS = 86_400_000;
@@ -67,8 +66,6 @@ export interface RefillPlan {
 export interface PlanSizing {
   /** The moment `expectedVolumeOnArrival` refers to. */
   arrivalAt: number;
-  /** The volume the quantity was sized on then: the high side of the forecast (a pick-up: the low side). */
-  sizedOnVolume: number;
   /** Litres per day, positive while emptying. */
   ratePerDay: number;
   minimumOrder: number;
@@ -114,12 +111,10 @@ export function planRefill(input: RefillInput): Result<RefillPlan> {
   // The start of the delivery day is when an emptying tank holds the most (and a filling one the least):
   // sizing the order there keeps a morning delivery below the safe fill level.
   const expected = clamp(volume - (input.rate * (arrival - input.lastReadingAt)) / DAY_MS, 0, capacity);
-  // Sized against the high side of the forecast (the low side for a pick-up), at the same service level:
-  // a tank that used less than expected must still not go above its safe fill level.
-  const margin =
-    serviceFactor(settings.serviceLevel) * useSpread(uncertainty, (arrival - input.lastReadingAt) / DAY_MS);
-  const sizedOn = clamp(filling ? expected - margin : expected + margin, 0, capacity);
-  const sized = quantityFor(filling, sizedOn, safeFillVolume, settings);
+  // Sized on the expected volume, as the order states it (safe fill minus expected, whole increments): the
+  // figure a person can check. A tank that used less than expected has less room, so every reply with a
+  // quantity tells the crew to gauge before filling (common practice) rather than trust the forecast.
+  const sized = quantityFor(filling, expected, safeFillVolume, settings);
 
   const rp = reorderPoint({
     demandPerDay: Math.max(0, flow),
@@ -145,7 +140,6 @@ export function planRefill(input: RefillInput): Result<RefillPlan> {
     safeFillVolume,
     sizing: {
       arrivalAt: arrival,
-      sizedOnVolume: sizedOn,
       ratePerDay: input.rate,
       minimumOrder: settings.minimumOrder,
       orderIncrement: settings.orderIncrement,
