@@ -1,19 +1,12 @@
 import { runwayTo } from '../engine/forecast/runway.js';
-import { buildTank, type Tank as TankGeometry } from '../engine/geometry/index.js';
-import {
-  createRateEstimator,
-  type RatePoint,
-  restoreRateEstimator,
-  type TankEvent,
-  type TankEventType,
-  type TimedVolume,
-} from '../engine/rate/index.js';
+import type { Tank as TankGeometry } from '../engine/geometry/index.js';
+import type { RatePoint, TankEventType } from '../engine/rate/index.js';
 import { planRefill, type RefillPlan } from '../engine/refill/planRefill.js';
-import { fromLitres, fromMetres, isVolumeUnit, toLitres } from '../engine/units/index.js';
-import { readingLevelMetres, readingLitres } from './reading-volume.js';
+import { fromLitres, fromMetres } from '../engine/units/index.js';
+import { readingLevelMetres } from './reading-volume.js';
 import type { Store } from './store/index.js';
-import type { SeriesReading } from './store/readings.js';
-import type { Delivery, Tank } from './store/types.js';
+import type { Tank } from './store/types.js';
+import { geometryOf, rateOf, seriesOf } from './tank-rate.js';
 
 const DAY_MS = 86_400_000;
 
@@ -94,45 +87,6 @@ function thresholdLitres(tank: Tank, geometry: TankGeometry): number | undefined
   if ('percent' in t) return (t.percent / 100) * geometry.capacity;
   if ('volume' in t) return t.volume;
   return undefined;
-}
-
-interface Series {
-  readings: (TimedVolume & { row: SeriesReading })[];
-  deliveries: TimedVolume[];
-  skipped: number;
-}
-
-/** Built tanks by their stored spec: building tabulates the shape, and a question should not pay for it. */
-const geometries = new Map<string, ReturnType<typeof buildTank>>();
-const GEOMETRY_CACHE_SIZE = 512;
-
-function geometryOf(spec: unknown): ReturnType<typeof buildTank> {
-  const key = JSON.stringify(spec);
-  let built = geometries.get(key);
-  if (!built) {
-    built = buildTank(spec);
-    if (geometries.size >= GEOMETRY_CACHE_SIZE) geometries.delete(geometries.keys().next().value!);
-    geometries.set(key, built);
-  }
-  return built;
-}
-
-/** Raw readings and deliveries to litres with the tank's current shape; readings it cannot hold are skipped. */
-export function seriesOf(
-  geometry: TankGeometry,
-  readings: readonly SeriesReading[],
-  deliveries: readonly Delivery[],
-): Series {
-  const out: Series = { readings: [], deliveries: [], skipped: 0 };
-  for (const row of readings) {
-    const litres = readingLitres(geometry, row);
-    if (litres.ok) out.readings.push({ time: row.time, volume: litres.value, row });
-    else out.skipped++;
-  }
-  for (const d of deliveries) {
-    if (isVolumeUnit(d.unit)) out.deliveries.push({ time: d.time, volume: toLitres(d.volume, d.unit) });
-  }
-  return out;
 }
 
 /** The status of one tank of one team at `now`. */
@@ -281,77 +235,10 @@ function inDisplayUnits(plan: RefillPlan, show: (litres: number) => number): Par
   };
 }
 
-const STATE_VERSION = createRateEstimator().toJSON().version;
-
 /** How far back the chart's history and the "change since" reach, from the newest reading. */
 const HISTORY_WINDOW_MS = 120 * DAY_MS;
 /** ...and at most this many readings: a month of an hourly sensor, more than a phone's chart can show. */
 const HISTORY_LIMIT = 720;
-
-interface RateResult {
-  events: readonly TankEvent[];
-  /** The point of the newest reading, and the newest trusted one (a suspect reading must not move figures). */
-  latest: RatePoint | null;
-  trusted: RatePoint | null;
-  readings: number;
-  skipped: number;
-}
-
-/**
- * The rate estimator over every reading and delivery of the tank, resumed from the cached state when the
- * cache is still valid (the store's triggers drop it on any change back in time), fed in the order of
- * engine/rate `analyzeSeries` (a delivery at or before a reading's instant goes first), so the result is
- * the batch result. The state after the newest reading is cached again; later deliveries are not.
- */
-function rateOf(
-  store: Store,
-  teamId: string,
-  tank: Tank,
-  geometry: TankGeometry,
-  filling: boolean,
-): RateResult {
-  const specKey = JSON.stringify([tank.spec, filling]);
-  const cached = store.rateCache.get(teamId, tank.id);
-  // A state from another engine version, or for another shape, is not resumed.
-  const cache = cached?.specKey === specKey && cached.state.version === STATE_VERSION ? cached : undefined;
-  const estimator = cache
-    ? restoreRateEstimator(cache.state)
-    : createRateEstimator({ capacity: geometry.capacity, filling });
-  const since = cache ? cache.asOfTime : Number.MIN_SAFE_INTEGER;
-  const fresh = seriesOf(
-    geometry,
-    store.readings.series(teamId, tank.id, since),
-    store.deliveries.forTank(teamId, tank.id, { since: since + 1 }),
-  );
-  let latest = cache?.points.latest ?? null;
-  let trusted = cache?.points.trusted ?? null;
-  let d = 0;
-  for (const r of fresh.readings) {
-    while (d < fresh.deliveries.length && fresh.deliveries[d]!.time <= r.time) {
-      estimator.addDelivery(fresh.deliveries[d]!.time, fresh.deliveries[d]!.volume);
-      d++;
-    }
-    latest = estimator.addReading(r.time, r.volume);
-    if (!latest.suspect) trusted = latest;
-  }
-  const readings = (cache?.readings ?? 0) + fresh.readings.length;
-  const skipped = (cache?.skipped ?? 0) + fresh.skipped;
-  const newest = fresh.readings[fresh.readings.length - 1];
-  if (newest) {
-    store.rateCache.put(teamId, tank.id, {
-      asOfTime: newest.time,
-      readings,
-      skipped,
-      specKey,
-      state: estimator.toJSON(),
-      points: { latest, trusted },
-    });
-  }
-  for (; d < fresh.deliveries.length; d++) {
-    estimator.addDelivery(fresh.deliveries[d]!.time, fresh.deliveries[d]!.volume);
-  }
-  return { events: estimator.events, latest, trusted: trusted ?? latest, readings, skipped };
-}
 
 function runwayFrom(
   point: RatePoint,
