@@ -1,0 +1,52 @@
+// The accuracy bench's own yardsticks: the baselines recover an exact line, events match within the
+// tolerance, and the generator's truth agrees with its readings.
+import { describe, expect, it } from 'vitest';
+import { leastSquaresBaseline } from '../bench/accuracy/baselines.js';
+import { median, scenarioMetrics } from '../bench/accuracy/metrics.js';
+import { accuracySuite } from '../bench/accuracy/suite.js';
+
+const DAY = 86_400_000;
+
+describe('least-squares baselines', () => {
+  it('recover the slope of an exact line, and take out a rise only when asked', () => {
+    const readings = Array.from({ length: 48 }, (_, i) => ({
+      time: i * (DAY / 4),
+      volume: 5000 - 25 * i + (i >= 24 ? 3000 : 0),
+    }));
+    const plain = leastSquaresBaseline(readings, 10_000, false);
+    const cleaned = leastSquaresBaseline(readings, 10_000, true);
+    // 25 L every 6 h is 100 L/day; before the rise both agree exactly.
+    expect(plain.points[20]!.rate).toBeCloseTo(100, 9);
+    expect(cleaned.points[20]!.rate).toBeCloseTo(100, 9);
+    // After the rise the raw slope turns negative; the cleaned one stays near 100 (the 25 L used in the
+    // interval of the rise goes out with the rise, so it is a little low while that interval is in the window).
+    expect(plain.points[30]!.rate).toBeLessThan(0);
+    expect(cleaned.points[40]!.rate).toBeGreaterThan(90);
+    expect(cleaned.points[40]!.rate).toBeLessThan(100);
+    expect(cleaned.events).toEqual([
+      { type: 'delivery', start: 23 * (DAY / 4), end: 24 * (DAY / 4), volume: 2975 },
+    ]);
+  });
+});
+
+describe('metrics and scenarios', () => {
+  const [scenario] = accuracySuite({ dense: 1, manual: 0, filling: 0, hard: 0 }, 99);
+
+  it('gives the truth a perfect score against itself', () => {
+    const s = scenario!;
+    const points = s.readings.map((r) => {
+      const rate = s.truth.rateAt(r.time);
+      return { time: r.time, volume: s.truth.volumeAt(r.time), rate, rateLow: rate - 1, rateHigh: rate + 1 };
+    });
+    const m = scenarioMetrics(s, { points, events: s.truth.events });
+    expect(m.refill.fp + m.refill.fn + m.withdrawal.fp + m.withdrawal.fn).toBe(0);
+    expect(median(m.rateErrors)).toBe(0);
+    expect(m.rateCovered).toBe(1);
+  });
+
+  it('puts readings near the true volume (noise, swing and spikes aside)', () => {
+    const s = scenario!;
+    const errors = s.readings.map((r) => Math.abs(r.volume - s.truth.volumeAt(r.time)) / s.capacity);
+    expect(median(errors)).toBeLessThan(0.02);
+  });
+});
