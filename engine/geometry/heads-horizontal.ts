@@ -69,7 +69,8 @@ export function horizontalHeadVolume(head: Head, h: number): number {
 
 /**
  * Guppy head: a R^2 theta / 3 + a / (9R) sqrt(2Rh - h^2) (2h - 3R) (h + R) with theta = acos(1 - h/R)
- * (D. Jones, "Calculating Tank Volume"; one head is half the two-head expression). theta and the root are
+ * (D. Jones, "Calculating Tank Volume"; one head is half the two-head expression; written from memory of
+ * that form and confirmed by the fluids 1.0.22 reference vectors in test/). theta and the root are
  * formed from h and 2R - h so that a thin layer, or a nearly full head, keeps its digits; the two terms
  * still cancel there, so rounding is clamped to [0, full].
  */
@@ -86,7 +87,8 @@ function guppyHead(R: number, a: number, h: number): number {
 
 /**
  * Conical head, level h <= R: a R^2 K / 3 with M = (R - h) / R and
- * K = acos M + M^3 acosh(1/M) - 2 M sqrt(1 - M^2) (D. Jones, "Calculating Tank Volume", horizontal cone).
+ * K = acos M + M^3 acosh(1/M) - 2 M sqrt(1 - M^2) (D. Jones, "Calculating Tank Volume", horizontal cone;
+ * written from memory of that form and confirmed by the fluids 1.0.22 reference vectors in test/).
  */
 function conicalBelowAxis(R: number, a: number, h: number): number {
   const e = h / R;
