@@ -1,6 +1,6 @@
-import { buildTank } from '../../engine/geometry/index.js';
 import { isLengthUnit } from '../../engine/units/index.js';
 import { readingLitres } from '../reading-volume.js';
+import { geometryOf } from '../tank-rate.js';
 import { tankStatus } from '../tank-status.js';
 import { defineHandler, privateError } from './handler.js';
 import { readingConfirmation } from './reading.js';
@@ -36,7 +36,7 @@ export const confirmHandler = defineHandler({
     }
     let confirmed = reading;
     if (command.answer && suggested && isLengthUnit(suggested)) {
-      const geometry = buildTank(tank.spec);
+      const geometry = geometryOf(tank.spec);
       const fits = geometry.ok && readingLitres(geometry.value, { ...reading, unit: suggested }).ok;
       if (!fits)
         return [

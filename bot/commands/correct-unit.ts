@@ -1,6 +1,6 @@
-import { buildTank } from '../../engine/geometry/index.js';
 import { readingLitres } from '../reading-volume.js';
 import type { ReadingKind } from '../store/types.js';
+import { geometryOf } from '../tank-rate.js';
 import { tankStatus } from '../tank-status.js';
 import { defineHandler, privateError } from './handler.js';
 import { readingConfirmation } from './reading.js';
@@ -18,7 +18,7 @@ export const correctUnitHandler = defineHandler({
     if (!reading)
       return [privateError('You have no recent reading to correct; send the reading again with its unit.')];
     const tank = store.tanks.byId(request.team, reading.tankId);
-    const geometry = tank ? buildTank(tank.spec) : undefined;
+    const geometry = tank ? geometryOf(tank.spec) : undefined;
     if (!tank || !geometry?.ok)
       return [privateError('That reading’s tank cannot be used any more; nothing was changed.')];
     const u = command.unit;

@@ -61,11 +61,9 @@ export const deliveryHandler = defineHandler({
     if (after) {
       const reading = storeReading(context, tank, after, time.value, command.raw);
       replies.push(...replyForNewReading(context, tank, geometry, reading));
-    } else {
-      const status = tankStatus(store, request.team, tank.id, now)!;
-      facts.push({ label: 'Runway', value: runwayText(status, now, timeZone) });
     }
     const status = tankStatus(store, request.team, tank.id, now)!;
+    if (!after) facts.push({ label: 'Runway', value: runwayText(status, now, timeZone) });
     const caution = statusCaution(status, 'delivery');
     replies.unshift({
       kind: 'confirmation',

@@ -1,8 +1,9 @@
-import { buildTank, type Tank as TankGeometry } from '../../engine/geometry/index.js';
+import type { Tank as TankGeometry } from '../../engine/geometry/index.js';
 import { fail, ok, type Result } from '../../engine/result.js';
 import { unknownTankMessage } from '../language/tankName.js';
 import type { Tank } from '../store/types.js';
 import { findTank, tankNamesOf } from '../tank-lookup.js';
+import { geometryOf } from '../tank-rate.js';
 import type { CommandContext } from './handler.js';
 
 /** The team's tank a message named, or the "did you mean" error the language part words. */
@@ -19,7 +20,7 @@ export function resolveTankGeometry(
 ): Result<{ tank: Tank; geometry: TankGeometry }> {
   const tank = resolveTank(context, name);
   if (!tank.ok) return tank;
-  const geometry = buildTank(tank.value.spec);
+  const geometry = geometryOf(tank.value.spec);
   if (!geometry.ok) {
     return fail(
       `${tank.value.code}'s stored shape cannot be used (${geometry.error}); an admin can add the tank again.`,
