@@ -178,6 +178,7 @@ describe('suspect readings', () => {
       [clean[40]!.time, Number.NaN, /not a number/],
       [clean[40]!.time, -5, /below zero/],
       [clean[40]!.time, 25_000, /above the tank capacity/],
+      [clean[40]!.time, 1e300, /larger than any tank/],
       [clean[10]!.time, 8000, /earlier/],
       [Number.NaN, 8000, /not a valid instant/],
     ];

@@ -34,6 +34,7 @@ const {
   EVENT_Z,
   HUBER_C,
   MAX_PENDING,
+  MAX_VOLUME_LITRES,
   RATE_MEMORY_DAYS,
   RATE_MEMORY_INTERVALS,
   RATE_MEMORY_MAX_DAYS,
@@ -62,7 +63,7 @@ export class Estimator implements RateEstimator {
 
   addDelivery(time: number, volumeLitres: number): void {
     const s = this.s;
-    if (!Number.isFinite(time) || !(volumeLitres > 0) || !Number.isFinite(volumeLitres)) return;
+    if (!Number.isFinite(time) || !(volumeLitres > 0) || !(volumeLitres <= MAX_VOLUME_LITRES)) return;
     registerLogged(s, time, volumeLitres);
   }
 
@@ -121,6 +122,8 @@ export class Estimator implements RateEstimator {
     if (!Number.isFinite(time)) return 'the time is not a valid instant';
     if (!Number.isFinite(volume)) return 'the volume is not a number';
     if (volume < 0) return 'a volume below zero';
+    // Past this no tank is real, and squares of such numbers would overflow the filter.
+    if (volume > MAX_VOLUME_LITRES) return 'a volume larger than any tank';
     const latest = s.pending.length > 0 ? s.pending[s.pending.length - 1]!.time : s.lastTime;
     if (latest !== null && time < latest) return 'earlier than a reading already used';
     if (s.capacity !== null && volume > s.capacity * 1.05) {

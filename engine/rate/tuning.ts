@@ -39,3 +39,5 @@ export const RELEARN_WIDEN = 1;
 export const RECENT_KEEP_DAYS = 3;
 /** Memory of each hour's mean in the daily profile of dense series, days. */
 export const PROFILE_MEMORY_DAYS = 3;
+/** Readings above this are refused: the largest storage tanks hold about 1e8 L (from memory), far below. */
+export const MAX_VOLUME_LITRES = 1e12;
