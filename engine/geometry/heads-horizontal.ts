@@ -16,7 +16,11 @@ const RULE = gaussLegendre01(32);
 export function horizontalHeadVolumeFn(head: Head): (h: number) => number {
   const R = head.radius;
   const hemisphere = head.type === 'spherical' && head.depth >= R * (1 - 1e-12);
-  if (hemisphere) return (h) => horizontalHeadVolume({ ...head, type: 'ellipsoidal' }, h);
+  if (hemisphere) {
+    // A hemisphere is the ellipsoidal head with depth = R, in closed form.
+    const asEllipsoid: Head = { ...head, type: 'ellipsoidal' };
+    return (h) => horizontalHeadVolume(asEllipsoid, h);
+  }
   if (head.type !== 'spherical' && head.type !== 'torispherical') return (h) => horizontalHeadVolume(head, h);
   // Near theta = 0 a nearly hemispherical cap integrates less smoothly: grade toward that end too.
   const breaks: number[] = head.type === 'spherical' ? [0] : [];
