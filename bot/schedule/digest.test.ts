@@ -3,7 +3,8 @@ import { type TempStore, tempStore } from '../../test/schedule/helpers.js';
 import { toPlainText } from '../replies/plainText.js';
 import type { Store } from '../store/index.js';
 import { tankStatus } from '../tank-status.js';
-import { composeDigest, DIGEST_MAX_CHARS, digestFromStore } from './digest.js';
+import { composeDigest, DIGEST_MAX_CHARS, digestFromStore, previewDigest } from './digest.js';
+import { createScheduler } from './scheduler.js';
 
 // Demo scenario of our own invention: Kestrel Valley Water Co-op (DEMO DATA).
 const DAY = 86_400_000;
@@ -156,6 +157,54 @@ describe('composeDigest from the store', () => {
     const text = toPlainText(reply);
     expect(text).toContain('NEW1: no readings yet');
     expect(text).toMatch(/BAD1's stored shape is not valid/);
+  });
+});
+
+describe('previewDigest (`digest now`)', () => {
+  it('reports news since the last digest delivered to the channel, not the same delivery twice', async () => {
+    store.teams.update(TEAM, { digestTime: '07:00', digestDays: [], digestChannel: 'ops' });
+    const w1 = addTank('W1', 'North Yard', 'potable water');
+    const firstRead = Date.parse('2026-11-17T14:00:00Z');
+    read(
+      w1,
+      Array.from({ length: 14 }, (_, i) => [firstRead + i * DAY, 350 - 3 * i] as [number, number]),
+    );
+    const delivered = Date.parse('2026-12-01T02:00:00Z'); // Mon 30 Nov 20:00 in Chicago
+    store.deliveries.add(
+      TEAM,
+      {
+        tankId: w1,
+        time: delivered,
+        volume: 100,
+        unit: 'gal',
+        rawText: 'delivered 100 gal to W1',
+        userId: 'u1',
+      },
+      delivered,
+    );
+    read(w1, [[delivered + HOUR, 408]]);
+    const preview = Date.parse('2026-12-02T00:00:00Z'); // Tue 1 Dec 18:00 in Chicago
+    const fact = (label: string) =>
+      previewDigest(store, store.teams.get(TEAM)!, preview).facts?.find((f) => f.label === label)?.value;
+
+    // No digest yet: the last day's news, the delivery included.
+    expect(fact('Deliveries since the last digest')).toMatch(/^W1 \+[\d.]+ gal, yesterday, Mon 30 Nov/);
+    // Tuesday's 07:00 digest goes out (and reports it) ...
+    const posted: string[] = [];
+    const scheduler = createScheduler({
+      store,
+      clock: () => preview,
+      graceMinutes: 60,
+      claimNotices: false,
+      deliver: (_t, _c, replies) => {
+        posted.push(toPlainText(replies[0]!));
+      },
+    });
+    await scheduler.tick(Date.parse('2026-12-01T13:00:00Z'));
+    expect(posted).toHaveLength(1);
+    expect(posted[0]).toContain('W1 +');
+    // ... so a preview that evening has no delivery news left.
+    expect(fact('Deliveries since the last digest')).toBeUndefined();
   });
 });
 

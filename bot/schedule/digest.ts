@@ -21,6 +21,7 @@ import {
   problemLines,
   runwayRow,
 } from './digest-sections.js';
+import { postsRepo } from './posts.js';
 import { orderLines } from './site-orders.js';
 
 /** The plain-text budget: under Discord's 2,000-character message with room for a mention or a link. */
@@ -169,4 +170,14 @@ export function digestFromStore(store: Store, team: Team, now: number, since: nu
     since: since ?? now - DAY,
     statuses,
   });
+}
+
+/**
+ * The digest on demand (`digest now`): as the next scheduled one would read at `now`, with news since the
+ * last digest delivered to the team's channel (a day back when there was none). Claims nothing.
+ */
+export function previewDigest(store: Store, team: Team, now: number): Reply {
+  const channel = team.digestChannel;
+  const since = channel ? postsRepo(store.db).lastDigestDueAt(team.id, channel) : null;
+  return digestFromStore(store, team, now, since);
 }
