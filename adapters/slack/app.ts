@@ -91,8 +91,9 @@ export function createSlackAdapter(options: SlackAdapterOptions): SlackAdapter {
     logLevel,
     ...(options.logger ? { logger: options.logger } : {}),
   });
-  const zones = createUserZones(async (teamId, user) => {
-    const info = await clients.forTeam(teamId).users.info({ user });
+  // The zone lookup fails fast (interactive client): a reply never waits on it; the team's zone stands in.
+  const zones = createUserZones(async (_teamId, user) => {
+    const info = await clients.interactive.users.info({ user });
     return info.user?.tz;
   }, clock);
   const outbox = createOutbox(clients, options.renderChart, app.logger);

@@ -19,7 +19,7 @@ export interface ClientSettings {
 export interface TeamClients {
   /** The posting client of one Slack team (team id without our `slack:` prefix). */
   forTeam(teamId: string): webApi.WebClient;
-  /** Fails fast on 429: for calls that are useless once the person has moved on. */
+  /** Fails fast on 429 and does not retry: for calls that are useless once the person has moved on. */
   interactive: webApi.WebClient;
   /** Options every client shares (the receivers take them too). */
   options: webApi.WebClientOptions;
@@ -38,7 +38,12 @@ export function createTeamClients(settings: ClientSettings): TeamClients {
   const clients = new Map<string, webApi.WebClient>();
   return {
     options,
-    interactive: new web.WebClient(settings.token, { ...options, rejectRateLimitedCalls: true }),
+    // No retries either: a modal's trigger is dead long before a retry, and a sender's zone is not worth a wait.
+    interactive: new web.WebClient(settings.token, {
+      ...options,
+      rejectRateLimitedCalls: true,
+      retryConfig: { retries: 0 },
+    }),
     forTeam(teamId) {
       let client = clients.get(teamId);
       if (!client) {

@@ -143,6 +143,22 @@ describe('Slack, end to end over HTTP', () => {
     expect(readingsOf('slack:T0RATEA')).toHaveLength(1);
   });
 
+  it('does not wait for a rate-limited zone lookup: the team zone stands in', async () => {
+    await say('T0ZONE', addHypo);
+    h.api.rateLimit('users.info', 30, 1, (p) => p.user === 'U0ZED');
+    const res = await h.command({
+      team: 'T0ZONE',
+      channel: 'C0MILL',
+      user: 'U0ZED',
+      text: 'T4 61in',
+      id: 'zed',
+    });
+    expect(res.status).toBe(200);
+    // Answered within the stand-in's 5 s wait, not after the 30 s Retry-After.
+    const reply = await h.api.waitFor(() => h.api.responses.find((r) => r.id === 'zed'));
+    expect(String(reply.body.text)).toMatch(/^T4: 61 in/);
+  });
+
   it('posts the morning digest to the team channel through the scheduler', async () => {
     await say('T0DIGEST', addHypo, 'C0OPS');
     await say('T0DIGEST', 'set time zone America/Chicago', 'C0OPS');
