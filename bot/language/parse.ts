@@ -20,6 +20,7 @@ import {
   CANCEL_WORDS,
   COMMAND_EXAMPLES,
   COMMAND_WORDS,
+  DELIVERY_VERBS,
   DIGEST_NOW_WORDS,
   DONE_WORDS,
   NO_WORDS,
@@ -118,6 +119,12 @@ function strappingRows(lines: readonly string[]): Result<Command> {
 }
 
 function routeLine(line: string, word: string, context: ParseContext): Result<Command> {
+  // A known tank name followed by a reading, a delivery or a question wins over a command word it starts
+  // with ("delivery-1 60in" is tank delivery-1).
+  const known = matchTankPrefix(line, context.tankNames);
+  if (known && (known.rest === '' || AFTER_TANK.test(known.rest)))
+    return afterTank(known.tank, known.rest, line, context);
+
   const help = parseHelp(line);
   if (help) return help;
   if (UNDO_WORDS.has(word)) return ok({ type: 'undo' });
@@ -141,10 +148,15 @@ function routeLine(line: string, word: string, context: ParseContext): Result<Co
     parseTankQuestion(line, context);
   if (special) return special;
 
-  const known = matchTankPrefix(line, context.tankNames);
   if (known) return afterTank(known.tank, known.rest, line, context);
   return notUnderstood(line, context);
 }
+
+/** The start of what may follow a tank name: a number, `+`, `?`, `:`, or a word of a reading or delivery. */
+const AFTER_TANK = new RegExp(
+  `^(?:[\\d.+?:=]|(?:${[...ULLAGE_WORDS, 'status', 'runway', 'level', 'is', 'reads?', 'at\\s+[\\d.]'].join('|')})\\b|(?:${DELIVERY_VERBS.join('|')})\\b)`,
+  'i',
+);
 
 /** What follows a known tank name: "?", "+400 gal", "delivered 400 gal", "60in", "ullage 14in". */
 function afterTank(tank: string, rest: string, line: string, context: ParseContext): Result<Command> {

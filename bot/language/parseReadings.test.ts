@@ -38,6 +38,16 @@ describe('readings', () => {
     expect(commandOf('T4 60in, at 7:30')).toMatchObject({ time: { at: utc('2026-11-10T13:30:00Z') } });
   });
 
+  it('reads a tank whose name starts with a command word as the tank', () => {
+    const context = { ...exampleContext, tankNames: ['delivery-1', 'Set-2', 'Help-3'] };
+    expect(commandOf('delivery-1 60in', context)).toMatchObject({ type: 'reading', tank: 'delivery-1' });
+    expect(commandOf('Set-2 +40 gal', context)).toMatchObject({ type: 'delivery', tank: 'Set-2' });
+    expect(commandOf('delivery-1?', context)).toEqual({ type: 'tank-question', tank: 'delivery-1' });
+    expect(commandOf('how long does Set-2 last?', context)).toEqual({ type: 'tank-question', tank: 'Set-2' });
+    expect(commandOf('help-3 48%', context)).toMatchObject({ type: 'reading', tank: 'Help-3' });
+    expect(commandOf('help', context)).toEqual({ type: 'help' });
+  });
+
   it('answers in the team spelling of the tank name', () => {
     expect(commandOf('t4 60 in')).toMatchObject({ type: 'reading', tank: 'T4' });
     expect(commandOf('north yard 2 48%')).toMatchObject({ type: 'reading', tank: 'North Yard 2' });
