@@ -1,6 +1,7 @@
 import { mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runInProcess as run } from '../../test/fixtures/geometry/run-cli.js';
 
@@ -66,5 +67,39 @@ describe('tankrunway volume', () => {
     expect(r.stdout).toBe('');
     expect(r.stderr.trimEnd().split('\n')).toHaveLength(1);
     expect(r.stderr).toMatch(message);
+  });
+});
+
+describe('volume, level and chart never crash on what is typed (fast-check)', () => {
+  it('answers 0 with output or 2 with one line on stderr, for any arguments', async () => {
+    const option = fc.constantFrom(
+      '--levels',
+      '--ullages',
+      '--reference',
+      '--volumes',
+      '--step',
+      '--json',
+      '--tank',
+      '--bogus',
+    );
+    const value = fc.oneof(
+      fc.string({ maxLength: 12 }),
+      fc.double().map(String),
+      fc.constantFrom('1,2', '62in', '5\' 2"', '-1', '1e400', ''),
+    );
+    await fc.assert(
+      fc.asyncProperty(
+        fc.constantFrom('volume', 'level', 'chart'),
+        fc.array(fc.tuple(option, value), { maxLength: 4 }),
+        async (command, pairs) => {
+          const args = [command, '--tank', tankPath, ...pairs.flat()];
+          const r = await run(args);
+          expect([0, 2]).toContain(r.code);
+          if (r.code === 2) expect(r.stderr.trimEnd().split('\n')).toHaveLength(1);
+          else expect(r.stdout.length).toBeGreaterThan(0);
+        },
+      ),
+      { numRuns: 200 },
+    );
   });
 });
