@@ -36,7 +36,7 @@ beforeEach(() => {
 });
 afterEach(() => temp.cleanup());
 
-function addTank(code: string, product: string, settings = {}) {
+function addTank(code: string, product: string, settings: Record<string, unknown> = {}) {
   return store.tanks.add(
     TEAM,
     { code, site: 'Mill Creek Lift Station', product, spec: drum, settings },
@@ -135,6 +135,30 @@ describe('threshold notices on a noisy sensor', () => {
     const limitNotices = (p: { meta: { key: string } }) => p.meta.key.includes(':limit:');
     expect(first.posted.filter(limitNotices)).toHaveLength(1);
     expect(second.posted.filter(limitNotices)).toHaveLength(0);
+  });
+});
+
+describe('high-level notices for a filling tank', () => {
+  it('a backwash tank rising past its safe fill gets one notice, with the overfill caution', async () => {
+    const waste = addTank('BW1', 'filter backwash waste', { filling: true, safeFillPercent: 90 });
+    const random = seeded(7);
+    const clock = { value: T0 };
+    const { scheduler, posted } = schedulerFor(clock);
+    // Hourly sensor readings rising from 60% to 97% of capacity over four days, +-1% noise.
+    for (let h = 0; h <= 96; h++) {
+      const time = T0 - 2 * DAY + h * HOUR;
+      read(waste, time, (0.6 + (0.37 * h) / 96 + (random() * 2 - 1) * 0.01) * CAPACITY);
+      if (h % 3 === 0) {
+        clock.value = time;
+        await scheduler.tick(time);
+      }
+    }
+    const notices = posted.filter((p) => p.meta.kind === 'notice');
+    expect(notices).toHaveLength(1);
+    const reply = notices[0]!.replies[0]!;
+    expect(reply.headline).toBe('BW1 at Mill Creek Lift Station is at its high level: book a pick-up.');
+    expect(reply.caution).toMatch(/Above the safe fill level/);
+    expect(reply.caution).toMatch(/local codes/);
   });
 });
 
