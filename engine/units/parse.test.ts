@@ -56,6 +56,40 @@ describe('parseQuantity', () => {
     expect(error('1,55 L')).toBeTypeOf('string');
   });
 
+  it('reads back any amount written with any unit id, glued or spaced (fast-check)', async () => {
+    const fc = (await import('fast-check')).default;
+    const ids = [
+      'mm',
+      'cm',
+      'm',
+      'in',
+      'ft',
+      'L',
+      'm3',
+      'gal',
+      'impgal',
+      'bbl',
+      'ft3',
+      'in3',
+      '%',
+      'gal/min',
+      'L/h',
+      'bbl/d',
+    ];
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0, max: 1e9, noNaN: true }),
+        fc.constantFrom(...ids),
+        fc.constantFrom('', ' '),
+        (x, unit, gap) => {
+          const r = parseQuantity(`${x}${gap}${unit}`);
+          expect(r.ok && r.value.unit).toBe(unit);
+          expect(r.ok && r.value.value).toBe(x);
+        },
+      ),
+    );
+  });
+
   it('never throws on arbitrary text', async () => {
     const fc = (await import('fast-check')).default;
     fc.assert(
