@@ -44,6 +44,14 @@ export function restoreRateEstimator(state: RateEstimatorState): RateEstimator {
   return new Estimator(structuredClone(state));
 }
 
+/** The series sorted by time; an already sorted one (the usual case) is used as is, without a copy. */
+function inTimeOrder(series: readonly TimedVolume[]): readonly TimedVolume[] {
+  for (let i = 1; i < series.length; i++) {
+    if (series[i]!.time < series[i - 1]!.time) return [...series].sort((a, b) => a.time - b.time);
+  }
+  return series;
+}
+
 export interface SeriesAnalysis {
   points: RatePoint[];
   events: TankEvent[];
@@ -61,8 +69,8 @@ export function analyzeSeries(
   options?: RateOptions,
 ): SeriesAnalysis {
   const estimator = createRateEstimator(options);
-  const sortedReadings = [...readings].sort((a, b) => a.time - b.time);
-  const sortedDeliveries = [...deliveries].sort((a, b) => a.time - b.time);
+  const sortedReadings = inTimeOrder(readings);
+  const sortedDeliveries = inTimeOrder(deliveries);
   const points: RatePoint[] = new Array(sortedReadings.length);
   let d = 0;
   for (let i = 0; i < sortedReadings.length; i++) {
