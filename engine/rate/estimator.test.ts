@@ -215,3 +215,17 @@ describe('rate changes', () => {
     expect(changes[0]!.to).toBeGreaterThan(300);
   });
 });
+
+describe('analyzeSeries input order', () => {
+  it('gives the same result for readings and deliveries in any order', () => {
+    const readings = series({ start: 5000, step: 6 * HOUR, days: 20, rate: () => 250, noise: 10 });
+    const deliveries = [
+      { time: 12 * DAY, volume: 300 },
+      { time: 4 * DAY, volume: 200 },
+    ];
+    const sorted = analyzeSeries(readings, [...deliveries].reverse(), { capacity: 10_000 });
+    const shuffled = analyzeSeries([...readings].reverse(), deliveries, { capacity: 10_000 });
+    expect(shuffled).toEqual(sorted);
+    expect(sorted.events.filter((e) => e.logged)).toHaveLength(2);
+  });
+});
