@@ -29,7 +29,7 @@ export const Z80 = 1.2815515655446004;
  * standard error is widened by 1 + RATE_SIGMA_PER_OCTAVE * log2(readings per RATE_SIGMA_CORRELATION_DAYS),
  * calibrated on the accuracy bench so the ~80% range covers about 80%.
  */
-export const RATE_SIGMA_PER_OCTAVE = 0.5;
+export const RATE_SIGMA_PER_OCTAVE = 0.6;
 export const RATE_SIGMA_CORRELATION_DAYS = 0.25;
 /** A rate change must settle for this long before it is reported. */
 export const CHANGE_SETTLE_DAYS = 1;
