@@ -6,6 +6,7 @@
  * reading newer than the last one its states saw, so a tick costs one indexed query per tank otherwise. The
  * new state and the notice's claim are written in one transaction: a crash leaves both or neither.
  */
+import { setImmediate as yieldNow } from 'node:timers/promises';
 import type Database from 'better-sqlite3';
 import type { Reply } from '../replies/reply.js';
 import type { Store } from '../store/open-store.js';
@@ -37,6 +38,8 @@ interface StateRow {
 }
 
 const DAY = 86_400_000;
+/** Tank statuses computed between two yields to the event loop (each costs a few milliseconds). */
+const YIELD_EVERY = 20;
 
 function statesRepo(db: Database.Database) {
   const read = db.prepare<[string, number], StateRow>(
@@ -86,11 +89,14 @@ interface TankContext {
   staleMs: number;
 }
 
-/** Stale reminder, then the notice rules if the tank has a reading its states have not seen. */
-function evaluateTank(tank: Tank, c: TankContext): void {
+/**
+ * Stale reminder, then the notice rules if the tank has a reading its states have not seen. Returns whether
+ * it had to compute the tank's status (the costly case).
+ */
+function evaluateTank(tank: Tank, c: TankContext): boolean {
   const { store, team, channel, now } = c;
   const latest = store.readings.latest(team.id, tank.id, now);
-  if (!latest) return;
+  if (!latest) return false;
   if (now - latest.time >= c.staleMs && c.morning.ok) {
     const key: PostKey = {
       teamId: team.id,
@@ -105,9 +111,9 @@ function evaluateTank(tank: Tank, c: TankContext): void {
     const seen = known.find((k) => k.rule === rule)?.seen_reading_at;
     return seen !== null && seen !== undefined && seen >= latest.time;
   });
-  if (seenAll) return;
+  if (seenAll) return false;
   const status = tankStatus(store, team.id, tank.id, now);
-  if (!status) return;
+  if (!status) return true;
   store.db
     .transaction(() => {
       for (const rule of NOTICE_RULES) {
@@ -126,6 +132,7 @@ function evaluateTank(tank: Tank, c: TankContext): void {
       }
     })
     .immediate();
+  return true;
 }
 
 export function noticesFromStore(options: NoticeOptions = {}): ClaimNotices {
@@ -133,7 +140,7 @@ export function noticesFromStore(options: NoticeOptions = {}): ClaimNotices {
   const staleMs = (options.staleDays ?? DEFAULT_STALE_DAYS) * DAY;
   const repos = new WeakMap<Database.Database, ReturnType<typeof statesRepo>>();
 
-  return (store, now, claim, report) => {
+  return async (store, now, claim, report) => {
     const repo = repos.get(store.db) ?? statesRepo(store.db);
     repos.set(store.db, repo);
     for (const team of store.teams.list()) {
@@ -150,11 +157,17 @@ export function noticesFromStore(options: NoticeOptions = {}): ClaimNotices {
         bands,
         staleMs,
       };
+      let computed = 0;
       for (const tank of store.tanks.list(team.id)) {
         try {
-          evaluateTank(tank, context);
+          if (evaluateTank(tank, context)) computed++;
         } catch (error) {
           report(team.id, error);
+        }
+        // After a restart every tank is new to its states: let chat requests through every few tanks.
+        if (computed >= YIELD_EVERY) {
+          computed = 0;
+          await yieldNow();
         }
       }
     }

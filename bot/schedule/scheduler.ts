@@ -11,6 +11,7 @@
  *      crash is retried (same replies, same key) while still within the grace period, else expired and logged.
  */
 import { randomUUID } from 'node:crypto';
+import { setImmediate as yieldNow } from 'node:timers/promises';
 import type { Reply } from '../replies/reply.js';
 import type { Store } from '../store/open-store.js';
 import type { Team } from '../store/types.js';
@@ -44,7 +45,7 @@ export type ClaimNotices = (
   claim: (key: PostKey, replies: Reply[], dueAt: number) => boolean,
   /** A tank or team that could not be evaluated (the others go on). */
   report: (teamId: string, error: unknown) => void,
-) => void;
+) => void | Promise<void>;
 
 export type ScheduleEvent =
   | { type: 'claimed' | 'delivered'; post: PostKey }
@@ -171,14 +172,17 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
     };
     try {
       for (const team of store.teams.list()) {
+        const due = calendar.due(team, now, graceMs + DAY);
         try {
-          for (const occurrence of calendar.due(team, now, graceMs + DAY)) claimDigest(team, occurrence, now);
+          for (const occurrence of due) claimDigest(team, occurrence, now);
         } catch (error) {
           report(team.id, error);
         }
+        // Composing a digest is the heavy part: let the process answer chat requests in between.
+        if (due.length > 0) await yieldNow();
       }
       if (claimNotices) {
-        claimNotices(store, now, (key, replies, dueAt) => claim(key, replies, dueAt, now), report);
+        await claimNotices(store, now, (key, replies, dueAt) => claim(key, replies, dueAt, now), report);
       }
     } catch (error) {
       if (!(error instanceof LeaseLostError)) throw error;
