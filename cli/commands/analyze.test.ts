@@ -185,7 +185,7 @@ describe('tankrunway analyze', () => {
 });
 
 describe('tankrunway analyze on a filling tank', () => {
-  it('tells a filling tank from its data: a pick-up, a negative rate and a runway to full', async () => {
+  it('tells a filling tank from its data: a pick-up, a negative rate; a runway to full when asked', async () => {
     // A waste tank of 5000 L rising 300 L/day, emptied by a 3000 L pick-up on day 8 (readings every 2 h).
     const lines = ['time,volume'];
     for (let h = 0; h <= 12 * 24; h += 2) {
@@ -198,7 +198,18 @@ describe('tankrunway analyze on a filling tank', () => {
     expect(out.events.map((e: { type: string }) => e.type)).toEqual(['pickup']);
     const last = out.points[out.points.length - 1];
     expect(last.rate).toBeCloseTo(-300, 0);
-    expect(last.runwayDays).toBeCloseTo((5000 - last.volume) / 300, 1);
+    // The contract's default runway is to empty: none while the tank rises.
+    expect(last.runwayDays).toBeNull();
+    const toFull = JSON.parse(
+      (await run(['analyze', file, '--capacity', '5000', '--filling', '--json'])).stdout,
+    );
+    const lastFull = toFull.points[toFull.points.length - 1];
+    expect(lastFull.runwayDays).toBeCloseTo((5000 - lastFull.volume) / 300, 1);
+    const toTarget = JSON.parse(
+      (await run(['analyze', file, '--capacity', '5000', '--target', '4500', '--json'])).stdout,
+    );
+    const lastTarget = toTarget.points[toTarget.points.length - 1];
+    expect(lastTarget.runwayDays).toBeCloseTo((4500 - lastTarget.volume) / 300, 1);
     const emptying = JSON.parse(
       (await run(['analyze', await csv('e.csv', dailyLines(10)), '--json'])).stdout,
     );

@@ -101,7 +101,10 @@ export function buildAnalyzeOutput(
     filling = true;
     analysis = run(true);
   }
-  const target = filling && options.targetDefaulted ? options.capacity : options.target;
+  // The runway of a filling tank runs to full only when asked for with --filling; one found filling from the
+  // data keeps the contract's default (to empty: none while it rises) unless a target was given.
+  const toFull = options.filling === true ? options.capacity : null;
+  const target = filling && options.targetDefaulted ? toFull : options.target;
   const resolved: AnalyzeOptions = { ...options, filling, target };
   return { analysis, output: outputFrom(analysis, resolved), options: resolved };
 }
