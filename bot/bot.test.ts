@@ -204,6 +204,28 @@ describe('bot.handle', () => {
     expect((await say('yes'))[0]?.kind).toBe('error');
   });
 
+  it('keeps a suspect reading as typed on "no", and says its figures wait for confirmation', async () => {
+    clock = Date.parse('2026-11-20T16:00:00Z');
+    await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal');
+    for (const [day, level] of [
+      [10, 60],
+      [11, 59],
+      [12, 58],
+      [13, 57.1],
+      [14, 56],
+      [15, 55],
+    ] as const) {
+      await say(`T4 ${level}in at 2026-11-${day} 08:00`);
+    }
+    await say('T4 54cm at 2026-11-16 08:00');
+    const [kept] = await say('no');
+    expect(kept?.headline).toMatch(/^T4: 54 cm = /);
+    const [answer] = await say('T4?');
+    expect(fact(answer, 'Unconfirmed')).toMatch(/rest on the readings before it/);
+    const [all] = await say('all');
+    expect(all?.table?.rows[0]?.[2]).toMatch(/\*$/);
+  });
+
   it('lets an unanswered question lapse after six hours', async () => {
     clock = Date.parse('2026-11-20T16:00:00Z');
     await say('add tank T9 strapping unit=L');

@@ -25,7 +25,12 @@ export const overviewHandler = defineHandler({
         visibility: 'channel',
         headline: `${statuses.length} tank${statuses.length === 1 ? '' : 's'}${urgent.length ? `; order now: ${urgent.join(', ')}` : ''}${team?.demo ? ' [DEMO DATA]' : ''}`,
         table: tankTable(statuses, now, timeZone),
-        facts: [{ label: 'As of', value: `${formatDateTime(now, timeZone)} (${timeZone})` }],
+        facts: [
+          { label: 'As of', value: `${formatDateTime(now, timeZone)} (${timeZone})` },
+          ...(statuses.some((s) => s.latest?.suspect)
+            ? [{ label: '*', value: 'latest reading not confirmed yet: ask about the tank for details' }]
+            : []),
+        ],
       },
     ];
   },

@@ -99,6 +99,12 @@ export function statusFacts(s: TankStatus, now: number, timeZone: string): Fact[
       value: `${formatAge(s.latest.time, now)} (${formatDateTime(s.latest.time, timeZone)}, "${s.latest.rawText}")`,
     });
   }
+  if (s.latest?.suspect) {
+    facts.push({
+      label: 'Unconfirmed',
+      value: `the latest reading does not fit the forecast (${s.latest.suspect}); use, runway and refill rest on the readings before it until the next reading confirms it`,
+    });
+  }
   if (s.skipped > 0) {
     facts.push({ label: 'Left out', value: `${s.skipped} reading(s) the tank's current shape cannot hold` });
   }

@@ -19,7 +19,8 @@ export function tankTable(statuses: readonly TankStatus[], now: number, timeZone
     rows: statuses.map((s) => [
       s.tank.code,
       s.tank.site ?? '',
-      s.latest ? formatVolume(s.latest.volume, s.volumeUnit) : '-',
+      // A star marks a latest reading the forecast does not trust yet (the question explains it).
+      s.latest ? `${formatVolume(s.latest.volume, s.volumeUnit)}${s.latest.suspect ? '*' : ''}` : '-',
       s.latest ? formatPercent(s.latest.fraction) : '-',
       runwayCell(s),
       refillCell(s, now, timeZone),
