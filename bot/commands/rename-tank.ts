@@ -17,11 +17,7 @@ export const renameTankHandler = defineHandler({
     const clash = findTank(store, request.team, command.newName);
     if (clash && clash.id !== tank.value.id)
       return [privateError(`You already have a tank ${command.newName}.`)];
-    store.db
-      .prepare(
-        'UPDATE tanks SET code = ?, name = CASE WHEN name = code THEN ? ELSE name END, updated_at = ? WHERE team_id = ? AND id = ?',
-      )
-      .run(command.newName, command.newName, now, request.team, tank.value.id);
+    store.tanks.rename(request.team, tank.value.id, command.newName, now);
     store.audit.record(
       request.team,
       {

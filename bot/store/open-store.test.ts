@@ -176,7 +176,8 @@ describe('openStore', () => {
     expect(store.processedRequests.record('console:a', 'Ev1', [], T0)).toBe(false);
     expect(store.processedRequests.find('console:a', 'Ev1')).toEqual(replies);
     expect(store.processedRequests.find('console:b', 'Ev1')).toBeUndefined();
-    expect(store.processedRequests.prune(T0 + 1)).toBe(1);
+    expect(store.processedRequests.prune('console:b', T0 + 1)).toBe(0);
+    expect(store.processedRequests.prune('console:a', T0 + 1)).toBe(1);
   });
 
   it('keeps one pending exchange per sender and channel', () => {

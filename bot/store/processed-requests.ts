@@ -8,8 +8,8 @@ export interface ProcessedRequestsRepo {
   find(teamId: string, dedupeKey: string): Reply[] | undefined;
   /** Records the key with its replies; returns false when it was already there. */
   record(teamId: string, dedupeKey: string, replies: Reply[], at: number): boolean;
-  /** Drops keys older than `before` (platforms stop retrying after minutes). */
-  prune(before: number): number;
+  /** Drops a team's keys older than `before` (platforms stop retrying after minutes). */
+  prune(teamId: string, before: number): number;
 }
 
 export function processedRequestsRepo(db: Database.Database): ProcessedRequestsRepo {
@@ -19,13 +19,13 @@ export function processedRequestsRepo(db: Database.Database): ProcessedRequestsR
   const insert = db.prepare(
     'INSERT OR IGNORE INTO processed_requests (team_id, dedupe_key, replies, at) VALUES (?, ?, ?, ?)',
   );
-  const prune = db.prepare('DELETE FROM processed_requests WHERE at < ?');
+  const prune = db.prepare('DELETE FROM processed_requests WHERE team_id = ? AND at < ?');
   return {
     find: (teamId, key) => {
       const row = find.get(teamId, key);
       return row ? parseJsonColumn<Reply[]>(row.replies, []) : undefined;
     },
     record: (teamId, key, replies, at) => insert.run(teamId, key, JSON.stringify(replies), at).changes === 1,
-    prune: (before) => prune.run(before).changes,
+    prune: (teamId, before) => prune.run(teamId, before).changes,
   };
 }

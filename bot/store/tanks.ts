@@ -27,6 +27,8 @@ export interface TanksRepo {
   /** Codes and names of the live tanks only: what the language needs on every message, without the JSON. */
   names(teamId: string): { code: string; name: string }[];
   update(teamId: string, id: number, patch: TankPatch, at: number): Tank | undefined;
+  /** A new short code; a name that was just the old code follows it. */
+  rename(teamId: string, id: number, code: string, at: number): boolean;
   /** Soft delete: history stays for the audit trail; the code becomes free again. */
   remove(teamId: string, id: number, at: number): boolean;
 }
@@ -64,6 +66,10 @@ export function tanksRepo(db: Database.Database): TanksRepo {
   );
   const update = db.prepare(
     `UPDATE tanks SET name = ?, site = ?, product = ?, spec = ?, settings = ?, updated_at = ?
+     WHERE team_id = ? AND id = ? AND deleted_at IS NULL`,
+  );
+  const rename = db.prepare(
+    `UPDATE tanks SET code = ?, name = CASE WHEN name = code THEN ? ELSE name END, updated_at = ?
      WHERE team_id = ? AND id = ? AND deleted_at IS NULL`,
   );
   const remove = db.prepare(
@@ -112,6 +118,7 @@ export function tanksRepo(db: Database.Database): TanksRepo {
       );
       return repo.byId(teamId, id);
     },
+    rename: (teamId, id, code, at) => rename.run(code, code, at, teamId, id).changes === 1,
     remove: (teamId, id, at) => remove.run(at, teamId, id).changes === 1,
   };
   return repo;
