@@ -33,6 +33,11 @@ export interface SlackAdapterOptions {
   /** The slash command with its slash, e.g. "/tankrunway". */
   command: string;
   renderChart: ChartRenderer;
+  /**
+   * The App Home board of a team (`slack:T123`): its tanks by runway. The composition root builds it from
+   * bot/runway-board; without it the home tab shows the bot's answer to `status`.
+   */
+  home?: (team: string, now: number) => Reply[] | Promise<Reply[]>;
   /** Retry policy of every Web API client; the library's default retries for about 30 minutes. */
   retryConfig?: webApi.RetryOptions;
   /** Socket Mode: how long without a pong before the client reconnects (the library's default is 5 s). */
@@ -99,7 +104,7 @@ export function createSlackAdapter(options: SlackAdapterOptions): SlackAdapter {
   const outbox = createOutbox(clients, options.renderChart, app.logger);
   const takeTurn = createTurns();
   const bot: Bot = { handle: (request) => takeTurn(() => options.bot.handle(request)) };
-  const ctx: SlackContext = { bot, clients, zones, outbox, logger: app.logger, clock };
+  const ctx: SlackContext = { bot, clients, zones, outbox, logger: app.logger, clock, home: options.home };
 
   listenForCommand(app, ctx, options.command);
   listenForMentions(app, ctx);

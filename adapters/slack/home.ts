@@ -1,14 +1,13 @@
 /**
- * The App Home tab: the team's tanks by runway, as the bot answers `status` (the overview in the bot's
- * language, so the list is computed where every other answer is), with buttons for the setup and settings
- * modals.
+ * The App Home tab: the team's tanks by runway (bot/runway-board, given by the composition root; without it
+ * the bot's answer to `status`), with buttons for the setup and settings modals.
  */
 import type { types } from '@slack/bolt';
 import type { Reply } from '../../bot/replies/reply.js';
 import { replyBlocks } from './blocks.js';
 import { openSettingsActionId, openSetupActionId } from './modals.js';
 
-/** The message the home tab asks the bot: the overview of every tank, sorted by runway. */
+/** The message the home tab asks the bot when no board is given: the overview of every tank. */
 export const homeQuestion = 'status';
 
 /** Slack allows 100 blocks in a home view (Block Kit reference). */

@@ -59,6 +59,7 @@ async function startPlatforms(
   const { createBot } = await import('../../bot/bot.js');
   const { renderChartPng } = await import('../../bot/replies/renderChart.js');
   const { tankNamesOf } = await import('../../bot/tank-lookup.js');
+  const { runwayBoard } = await import('../../bot/runway-board.js');
   const bot = createBot({ store });
   const stops: (() => Promise<void>)[] = [];
   const routes = new Map<
@@ -77,6 +78,7 @@ async function startPlatforms(
         apiUrl: s.apiUrl,
         command: settings.command,
         renderChart: renderChartPng,
+        home: (team, now) => [runwayBoard(store, team, now)],
         clock,
       });
       const { port } = await slack.start(settings.port);
@@ -138,7 +140,6 @@ function waitForSignal(): Promise<string> {
 
 export const serveCommand: CliCommand = {
   name: 'serve',
-  summary: 'run the bot on Slack and/or Discord (settings from the environment) or this terminal: --db FILE',
   async run(argv, io) {
     const { values } = parseArgs({
       args: argv,

@@ -5,6 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { expect } from 'vitest';
 import { createBot } from '../../bot/bot.js';
+import { runwayBoard } from '../../bot/runway-board.js';
 import { openStore, type Store } from '../../bot/store/index.js';
 import { type SlackHarness, startSlackHarness } from './harness.js';
 import type { ResponsePost } from './web-api-standin.js';
@@ -35,7 +36,10 @@ export interface SlackE2e {
 export async function openSlackE2e(prefix: string): Promise<SlackE2e> {
   const dir = mkdtempSync(join(tmpdir(), prefix));
   const store = openStore(join(dir, 'slack.sqlite'));
-  const h = await startSlackHarness({ bot: createBot({ store }) });
+  const h = await startSlackHarness({
+    bot: createBot({ store }),
+    home: (team, now) => [runwayBoard(store, team, now)],
+  });
   h.api.users.set('U0ANA', { tz: 'America/Chicago' });
   let seq = 0;
   return {

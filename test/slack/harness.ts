@@ -4,6 +4,7 @@ import { type Logger, LogLevel } from '@slack/bolt';
 import { createSlackAdapter, type SlackAdapter } from '../../adapters/slack/app.js';
 import type { Bot } from '../../bot/bot.js';
 import { renderChartPng } from '../../bot/replies/renderChart.js';
+import type { Reply } from '../../bot/replies/reply.js';
 import { interactionBody, postSigned, type SignedPostOptions, slashCommandBody } from './signed-request.js';
 import { type SocketStandIn, startSocketStandIn } from './socket-standin.js';
 import { startWebApiStandIn, type WebApiStandIn } from './web-api-standin.js';
@@ -74,7 +75,11 @@ export function eventEnvelope(event: Record<string, unknown>, meta: { team: stri
   };
 }
 
-export async function startSlackHarness(options: { bot: Bot; socketMode?: boolean }): Promise<SlackHarness> {
+export async function startSlackHarness(options: {
+  bot: Bot;
+  socketMode?: boolean;
+  home?: (team: string, now: number) => Reply[];
+}): Promise<SlackHarness> {
   const api = await startWebApiStandIn();
   const socket = options.socketMode ? await startSocketStandIn() : undefined;
   if (socket) api.socketUrl = socket.url;
@@ -87,6 +92,7 @@ export async function startSlackHarness(options: { bot: Bot; socketMode?: boolea
     apiUrl: api.apiUrl,
     command,
     renderChart: renderChartPng,
+    ...(options.home ? { home: options.home } : {}),
     retryConfig: { retries: 2, factor: 1, minTimeout: 10, maxTimeout: 50 },
     socketPingTimeoutMs: 500,
     logLevel: LogLevel.WARN,

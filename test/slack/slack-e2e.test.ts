@@ -183,17 +183,28 @@ describe('Slack, end to end over HTTP', () => {
     expect(String(posted.params.text)).toContain('T4');
   });
 
-  it('draws the home tab with the team tanks', async () => {
+  it('draws the home tab: the team tanks, shortest runway first, and no other team tanks', async () => {
+    for (const code of ['A1', 'B2']) await say('T0HOME', addHypo.replace('T4', code));
+    await say('T0HOME', 'A1 60in at yesterday 8am');
+    await say('T0HOME', 'A1 59in');
+    await say('T0HOME', 'B2 60in at yesterday 8am');
+    await say('T0HOME', 'B2 56in');
     await h.event(
       { type: 'app_home_opened', user: 'U0ANA', channel: 'D0HOME', tab: 'home', event_ts: '1764662400.1' },
-      { team: 'T0READ', eventId: 'EvHome' },
+      { team: 'T0HOME', eventId: 'EvHome' },
     );
     const publish = await h.api.waitFor(() =>
       h.api.callsOf('views.publish').find((c) => c.params.user_id === 'U0ANA'),
     );
     const json = JSON.stringify(publish.params.view);
     expect(json).toContain('Tanks by runway');
-    expect(json).toContain('T4');
+    expect(json).toContain('tankrunway:open-setup');
+    const table = /```(.*?)```/.exec(json)?.[1] ?? '';
+    const rows = table
+      .split('\\n')
+      .slice(2)
+      .map((line) => line.split(/\s+/)[0]);
+    expect(rows).toEqual(['B2', 'A1']); // T4 of the other teams never shows
   });
 
   it('survives signed requests that lack their parts or are not Slack payloads at all', async () => {
