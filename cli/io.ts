@@ -12,7 +12,13 @@ export class UsageError extends Error {}
 
 export interface CliCommand {
   name: string;
-  summary: string;
   /** Returns the process exit code. Throw UsageError for input the user must fix. */
   run(argv: string[], io: CliIo): Promise<number>;
+}
+
+/** A registry entry: what `--help` shows, and how to load the command when it is run. */
+export interface CommandEntry {
+  name: string;
+  summary: string;
+  load(): Promise<CliCommand>;
 }

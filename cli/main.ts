@@ -12,11 +12,14 @@ export async function main(argv: string[], io: CliIo): Promise<number> {
     io.stdout.write(usage());
     return 0;
   }
-  const command = commands.find((c) => c.name === name);
-  if (!command) {
-    io.stderr.write(`tankrunway: unknown command "${name}"; try one of: ${commands.map((c) => c.name).join(', ')}\n`);
+  const entry = commands.find((c) => c.name === name);
+  if (!entry) {
+    io.stderr.write(
+      `tankrunway: unknown command "${name}"; try one of: ${commands.map((c) => c.name).join(', ')}\n`,
+    );
     return 2;
   }
+  const command = await entry.load();
   try {
     return await command.run(rest, io);
   } catch (error) {

@@ -280,8 +280,6 @@ function summary(output: AnalyzeOutput): string {
 
 export const analyzeCommand: CliCommand = {
   name: 'analyze',
-  summary:
-    'rate, runway and events of a readings CSV: FILE [--tank FILE] [--volume-unit U] [--target N] --json',
   async run(argv, io) {
     if (argv.includes('--help') || argv.includes('-h')) {
       io.stdout.write(

@@ -8,7 +8,6 @@ import { readTankFile } from '../tank-file.js';
 
 export const chartCommand: CliCommand = {
   name: 'chart',
-  summary: 'calibration chart of a tank, level -> volume at a step: --tank FILE --step 1',
   async run(argv, io) {
     const { values } = parseArgs({
       args: argv,

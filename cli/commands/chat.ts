@@ -23,8 +23,6 @@ function defaultUser(): string {
 
 export const chatCommand: CliCommand = {
   name: 'chat',
-  summary:
-    'talk to the bot in this terminal (one message a line when piped): --db FILE [--demo] [--user NAME]',
   async run(argv, io) {
     const { values } = parseArgs({
       args: argv,

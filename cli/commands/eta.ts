@@ -39,7 +39,6 @@ function amount(
 
 export const etaCommand: CliCommand = {
   name: 'eta',
-  summary: 'time until a volume runs down at a steady inflow and outflow',
   async run(argv, io) {
     const { values } = parseArgs({
       args: argv,

@@ -21,7 +21,6 @@ function volumeInLitres(tank: Tank, entry: ListedValue): number {
 
 export const levelCommand: CliCommand = {
   name: 'level',
-  summary: 'level at each volume of a tank: --tank FILE --volumes 100,250',
   async run(argv, io) {
     const { values } = parseArgs({
       args: argv,

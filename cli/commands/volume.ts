@@ -17,7 +17,6 @@ export function lengthInMetres(tank: Tank, entry: ListedValue, option: string): 
 
 export const volumeCommand: CliCommand = {
   name: 'volume',
-  summary: 'volume at each level (or ullage) of a tank: --tank FILE --levels 0.1,0.5',
   async run(argv, io) {
     const { values } = parseArgs({
       args: argv,
