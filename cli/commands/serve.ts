@@ -126,16 +126,22 @@ async function startPlatforms(
   };
 }
 
-function waitForSignal(): Promise<string> {
-  return new Promise((resolveSignal) => {
-    const on = (signal: string) => {
-      process.off('SIGINT', on);
-      process.off('SIGTERM', on);
-      resolveSignal(signal);
+/** Resolves on SIGINT or SIGTERM; `cancel` removes the listeners when serve ends another way. */
+function waitForSignal(): { signal: Promise<string>; cancel(): void } {
+  let on: (signal: string) => void = () => undefined;
+  const cancel = () => {
+    process.off('SIGINT', on);
+    process.off('SIGTERM', on);
+  };
+  const signal = new Promise<string>((resolveSignal) => {
+    on = (name: string) => {
+      cancel();
+      resolveSignal(name);
     };
     process.once('SIGINT', on);
     process.once('SIGTERM', on);
   });
+  return { signal, cancel };
 }
 
 export const serveCommand: CliCommand = {
@@ -190,6 +196,8 @@ export const serveCommand: CliCommand = {
     const startedAt = Date.now();
     const clock = () => start + (Date.now() - startedAt);
 
+    // Listen for the stop signal before anything starts, so a SIGTERM during start-up still stops cleanly.
+    const stopSignal = waitForSignal();
     const dbPath = resolve(values.db);
     if (!existsSync(dirname(dbPath))) mkdirSync(dirname(dbPath), { recursive: true });
     const { openStore } = await import('../../bot/store/index.js');
@@ -197,6 +205,7 @@ export const serveCommand: CliCommand = {
     try {
       store = openStore(dbPath);
     } catch (error) {
+      stopSignal.cancel();
       throw new UsageError(
         `cannot open ${values.db}: ${error instanceof Error ? error.message : String(error)}`,
       );
@@ -205,6 +214,7 @@ export const serveCommand: CliCommand = {
     try {
       running = await startPlatforms(settings, store, io, clock);
     } catch (error) {
+      stopSignal.cancel();
       store.close();
       io.stderr.write(
         `tankrunway serve: could not start: ${error instanceof Error ? error.message : String(error)}\n`,
@@ -227,7 +237,7 @@ export const serveCommand: CliCommand = {
     const stopLoop = startLoop(scheduler, tickSeconds * 1000, (event) =>
       io.stderr.write(`schedule: ${JSON.stringify(event)}\n`),
     );
-    const signal = await waitForSignal();
+    const signal = await stopSignal.signal;
     io.stderr.write(`tankrunway serve: ${signal}, stopping\n`);
     stopLoop();
     scheduler.release();
