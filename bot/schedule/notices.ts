@@ -3,7 +3,7 @@
  * (its digest channel), and a tank with no reading for `staleDays` gets one reminder a day at most.
  *
  * Each tank and rule has a stored state (notice-machine.ts). A tank is looked at again only when it has a
- * reading newer than the last one its states saw, so a tick costs one indexed query per tank otherwise. The
+ * reading newer than the last one its states saw, so a tick costs two small indexed reads per tank otherwise. The
  * new state and the notice's claim are written in one transaction: a crash leaves both or neither.
  */
 import { setImmediate as yieldNow } from 'node:timers/promises';

@@ -106,6 +106,8 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
     return posts.claim(key, dueAt, replies, holder, now);
   });
   const claim = (key: PostKey, replies: Reply[], dueAt: number, now: number): boolean => {
+    // A daily reminder is offered on every tick of its day: a plain read spares the write lock after the first.
+    if (posts.exists(key)) return false;
     const claimed = claimIfLeader.immediate(key, dueAt, replies, now);
     if (claimed) log({ type: 'claimed', post: key });
     return claimed;
