@@ -24,17 +24,17 @@ export interface DiscordSettings {
 
 export interface ServeSettings {
   port: number;
-  /** The slash command, with its slash, e.g. "/tankrunway". */
+  /** The slash command, with its slash, e.g. "/tank". */
   command: string;
   slack?: SlackSettings;
   discord?: DiscordSettings;
 }
 
 /**
- * Our default command name. Slack has one command namespace per workspace, so a bare "/tank" is likely to clash
- * with another app's; "/tankrunway" is ours alone. TANKRUNWAY_COMMAND overrides it.
+ * The default command name, as the operators asked for. Slack has one command namespace per workspace: where
+ * "/tank" clashes with another app's, set TANKRUNWAY_COMMAND (e.g. "/tankrunway"); the manifest follows it.
  */
-export const defaultCommand = '/tankrunway';
+export const defaultCommand = '/tank';
 
 const optionalText = z
   .string()
