@@ -85,6 +85,9 @@ export function teamsRepo(db: Database.Database): TeamsRepo {
       return row ? toTeam(row) : undefined;
     },
     ensure: (teamId, at, defaults = {}) => {
+      // Read first: a question should not take the write lock just to learn the team exists.
+      const existing = getTeam.get(teamId);
+      if (existing) return toTeam(existing);
       insertTeam.run(teamId, defaults.name ?? null, defaults.timeZone ?? 'UTC', defaults.demo ? 1 : 0, at);
       return toTeam(getTeam.get(teamId)!);
     },
