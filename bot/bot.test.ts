@@ -104,6 +104,14 @@ describe('the conversation of the issue, as written', () => {
   });
 });
 
+/** T4 falling about an inch a day for six days: a forecast a slipped unit stands out from. */
+async function steadyT4(): Promise<void> {
+  clock = Date.parse('2026-11-20T16:00:00Z');
+  await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal');
+  const levels = [60, 59, 58, 57.1, 56, 55];
+  for (const [i, level] of levels.entries()) await say(`T4 ${level}in at 2026-11-${10 + i} 08:00`);
+}
+
 describe('bot.handle', () => {
   it('lets members log and ask but only admins change tanks and settings', async () => {
     await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal');
@@ -178,18 +186,7 @@ describe('bot.handle', () => {
   });
 
   it('keeps a suspect reading aside, suggests the unit and applies a yes', async () => {
-    clock = Date.parse('2026-11-20T16:00:00Z');
-    await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal');
-    for (const [day, level] of [
-      [10, 60],
-      [11, 59],
-      [12, 58],
-      [13, 57.1],
-      [14, 56],
-      [15, 55],
-    ] as const) {
-      await say(`T4 ${level}in at 2026-11-${day} 08:00`);
-    }
+    await steadyT4();
     const [question] = await say('T4 54cm at 2026-11-16 08:00');
     expect(question?.kind).toBe('question');
     expect(question?.headline).toMatch(/Did you mean 54 in/);
@@ -205,18 +202,7 @@ describe('bot.handle', () => {
   });
 
   it('keeps a suspect reading as typed on "no", and says its figures wait for confirmation', async () => {
-    clock = Date.parse('2026-11-20T16:00:00Z');
-    await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal');
-    for (const [day, level] of [
-      [10, 60],
-      [11, 59],
-      [12, 58],
-      [13, 57.1],
-      [14, 56],
-      [15, 55],
-    ] as const) {
-      await say(`T4 ${level}in at 2026-11-${day} 08:00`);
-    }
+    await steadyT4();
     await say('T4 54cm at 2026-11-16 08:00');
     const [kept] = await say('no');
     expect(kept?.headline).toMatch(/^T4: 54 cm = /);
