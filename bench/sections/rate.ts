@@ -3,7 +3,12 @@
 // timed in the same run on the same data.
 import { buildAnalyzeOutput, isoTime } from '../../cli/commands/analyze.js';
 import { parseReadingsCsv } from '../../cli/readings-csv.js';
-import { analyzeSeries, createRateEstimator, type TimedVolume } from '../../engine/rate/index.js';
+import {
+  analyzeSeries,
+  analyzeSeriesColumns,
+  createRateEstimator,
+  type TimedVolume,
+} from '../../engine/rate/index.js';
 import { ok } from '../../engine/result.js';
 import type { BenchRow, BenchSection } from '../harness.js';
 
@@ -80,6 +85,7 @@ export const rateSection: BenchSection = {
       value: n / (bestMs(() => bareKalman(times, volumes), 15) / 1000),
     };
     const batch = n / (bestMs(() => analyzeSeries(readings, [], { capacity: 10_000 }), 8) / 1000);
+    const columns = n / (bestMs(() => analyzeSeriesColumns(readings, [], { capacity: 10_000 }), 8) / 1000);
     const incremental = bestMs(() => {
       const estimator = createRateEstimator({ capacity: 10_000 });
       let sink = 0;
@@ -115,6 +121,13 @@ export const rateSection: BenchSection = {
       {
         name: 'batch analyzeSeries, readings/s (one core)',
         value: batch,
+        unit: 'readings/s',
+        baseline: bare,
+        goal: '>= 2,000,000 readings/s, within 10x of the bare loop',
+      },
+      {
+        name: 'batch analyzeSeriesColumns (typed arrays), readings/s (one core)',
+        value: columns,
         unit: 'readings/s',
         baseline: bare,
         goal: '>= 2,000,000 readings/s, within 10x of the bare loop',

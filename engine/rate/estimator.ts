@@ -8,7 +8,7 @@ import { detectChange, resetCusum } from './change.js';
 import { eventTypeFor, pushEvent } from './events.js';
 import { type Prediction, predict, reseedVolume, update } from './kalman.js';
 import { applySmallLogged, registerLogged, takeLogged } from './logged.js';
-import { pointFrom, rejectedPoint } from './point.js';
+import { copyPoint, type ScratchPoint, scratchPoint, writePoint, writeRejectedPoint } from './point.js';
 import { learnProfile, profileAt } from './profile.js';
 import { clearRecent, pushRecent, trimRecent } from './recent.js';
 import { noiseVar } from './state.js';
@@ -44,6 +44,8 @@ const {
 
 export class Estimator implements RateEstimator {
   private readonly pr: Prediction = { v: 0, p00: 0, p01: 0, p11: 0 };
+  /** Overwritten by every reading: `addReading` copies it, the batch path reads it into columns. */
+  private readonly out: ScratchPoint = scratchPoint();
 
   constructor(private readonly s: RateEstimatorState) {}
 
@@ -68,11 +70,16 @@ export class Estimator implements RateEstimator {
   }
 
   addReading(time: number, reading: number): RatePoint {
+    return copyPoint(this.step(time, reading));
+  }
+
+  /** One reading; the point it gives is valid until the next call (the batch path copies it out). */
+  step(time: number, reading: number): ScratchPoint {
     const s = this.s;
     const problem = this.rejectReason(time, reading);
     if (problem) {
       if (Number.isFinite(time)) s.suspects.push({ time, reason: problem });
-      return rejectedPoint(s, time, problem);
+      return writeRejectedPoint(s, time, problem, this.out);
     }
     s.count++;
     if (reading > s.scale) s.scale = reading;
@@ -132,7 +139,7 @@ export class Estimator implements RateEstimator {
     return null;
   }
 
-  private start(time: number, volume: number): RatePoint {
+  private start(time: number, volume: number): ScratchPoint {
     const s = this.s;
     const scale = Math.max(s.scale, 1);
     s.lastTime = time;
@@ -202,7 +209,7 @@ export class Estimator implements RateEstimator {
   }
 
   /** Deviant readings after a deviant one: a shift is real once two in a row agree with each other. */
-  private continuePending(time: number, volume: number, pr: Prediction, R: number): RatePoint {
+  private continuePending(time: number, volume: number, pr: Prediction, R: number): ScratchPoint {
     const s = this.s;
     const prev = s.pending[s.pending.length - 1]!;
     s.pending.push({ time, volume });
@@ -300,13 +307,13 @@ export class Estimator implements RateEstimator {
     s.pending = [];
   }
 
-  private pendingPoint(time: number, pr: Prediction, reason: string): RatePoint {
+  private pendingPoint(time: number, pr: Prediction, reason: string): ScratchPoint {
     const s = this.s;
-    return pointFrom(s, time, pr.v, pr.p11, reason);
+    return writePoint(s, time, pr.v, pr.p11, reason, this.out);
   }
 
-  private point(time: number, reason: string | undefined): RatePoint {
+  private point(time: number, reason: string | undefined): ScratchPoint {
     const s = this.s;
-    return pointFrom(s, time, s.v, s.p11, reason);
+    return writePoint(s, time, s.v, s.p11, reason, this.out);
   }
 }

@@ -4,8 +4,10 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
   analyzeSeries,
+  analyzeSeriesColumns,
   createRateEstimator,
   isRateEstimatorState,
+  pointsOf,
   type RateEstimatorState,
   restoreRateEstimator,
 } from './index.js';
@@ -82,6 +84,23 @@ describe('estimator laws', () => {
         const before = batch.events.filter((e) => e.start <= lastReading);
         expect(estimator.events.filter((e) => e.start <= lastReading)).toEqual(before);
         expect(estimator.changes).toEqual(batch.changes);
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('the columns (typed-array) batch path gives the same points, events and changes, bit for bit', () => {
+    fc.assert(
+      fc.property(seriesArb, ({ readings, logged, options }) => {
+        const points = feed(createRateEstimator(options), readings, logged);
+        const columns = analyzeSeriesColumns(readings, logged, options);
+        const batch = analyzeSeries(readings, logged, options);
+        expect(columns.length).toBe(points.length);
+        // toEqual treats 0 and -0 as different and NaN as equal: an exact comparison of every number.
+        expect(pointsOf(columns)).toEqual(points);
+        expect(columns.events).toEqual(batch.events);
+        expect(columns.changes).toEqual(batch.changes);
+        expect(columns.suspects).toEqual(batch.suspects);
       }),
       { numRuns: 150 },
     );

@@ -1,5 +1,7 @@
 // The consumption-rate estimator: public entry points (see estimator.ts for the method and its sources).
+import { columnsFrom, feedMerged, type SeriesColumns } from './columns.js';
 import { Estimator } from './estimator.js';
+import { copyPoint } from './point.js';
 import { initialState } from './state.js';
 import { isRateEstimatorState } from './state-check.js';
 import type {
@@ -29,6 +31,7 @@ export function createRateEstimator(options?: RateOptions): RateEstimator {
   return new Estimator(initialState(options));
 }
 
+export { pointAt, pointsOf, type SeriesColumns } from './columns.js';
 export { RATE_STATE_VERSION } from './state.js';
 export { isRateEstimatorState } from './state-check.js';
 
@@ -42,14 +45,6 @@ export function restoreRateEstimator(state: RateEstimatorState): RateEstimator {
     throw new Error('restoreRateEstimator: not a current estimator state; rebuild it from the readings');
   }
   return new Estimator(structuredClone(state));
-}
-
-/** The series sorted by time; an already sorted one (the usual case) is used as is, without a copy. */
-function inTimeOrder(series: readonly TimedVolume[]): readonly TimedVolume[] {
-  for (let i = 1; i < series.length; i++) {
-    if (series[i]!.time < series[i - 1]!.time) return [...series].sort((a, b) => a.time - b.time);
-  }
-  return series;
 }
 
 export interface SeriesAnalysis {
@@ -68,25 +63,27 @@ export function analyzeSeries(
   deliveries: readonly TimedVolume[],
   options?: RateOptions,
 ): SeriesAnalysis {
-  const estimator = createRateEstimator(options);
-  const sortedReadings = inTimeOrder(readings);
-  const sortedDeliveries = inTimeOrder(deliveries);
-  const points: RatePoint[] = new Array(sortedReadings.length);
-  let d = 0;
-  for (let i = 0; i < sortedReadings.length; i++) {
-    const reading = sortedReadings[i]!;
-    while (d < sortedDeliveries.length && sortedDeliveries[d]!.time <= reading.time) {
-      estimator.addDelivery(sortedDeliveries[d]!.time, sortedDeliveries[d]!.volume);
-      d++;
-    }
-    points[i] = estimator.addReading(reading.time, reading.volume);
-  }
-  for (; d < sortedDeliveries.length; d++)
-    estimator.addDelivery(sortedDeliveries[d]!.time, sortedDeliveries[d]!.volume);
+  const estimator = new Estimator(initialState(options));
+  const points: RatePoint[] = new Array(readings.length);
+  feedMerged(estimator, readings, deliveries, (i, p) => {
+    points[i] = copyPoint(p);
+  });
   return {
     points,
     events: [...estimator.events],
     changes: [...estimator.changes],
     suspects: [...estimator.suspects],
   };
+}
+
+/**
+ * The same analysis as `analyzeSeries` with the points as columns of typed arrays: no object per reading,
+ * for long series (the `analyze` command). `pointsOf` / `pointAt` turn them back into RatePoints.
+ */
+export function analyzeSeriesColumns(
+  readings: readonly TimedVolume[],
+  deliveries: readonly TimedVolume[],
+  options?: RateOptions,
+): SeriesColumns {
+  return columnsFrom(new Estimator(initialState(options)), readings, deliveries);
 }

@@ -1,0 +1,117 @@
+// The batch path: a whole series through one estimator, its points written into typed arrays (a struct of
+// arrays) instead of one object per reading, so a year of 5-minute readings makes no per-reading garbage.
+// The points are the very numbers `addReading` gives: both copy the same scratch point (point.ts).
+import type { Estimator } from './estimator.js';
+import type { ScratchPoint } from './point.js';
+import type { RateChange, RatePoint, SuspectReading, TankEvent, TimedVolume } from './types.js';
+
+export interface SeriesColumns {
+  length: number;
+  time: Float64Array;
+  volume: Float64Array;
+  rate: Float64Array;
+  rateLow: Float64Array;
+  rateHigh: Float64Array;
+  rateSigma: Float64Array;
+  readings: Float64Array;
+  basisDays: Float64Array;
+  /** Why each reading was not trusted; undefined when it was. */
+  suspect: (string | undefined)[];
+  events: TankEvent[];
+  changes: RateChange[];
+  suspects: SuspectReading[];
+}
+
+/** The series sorted by time; an already sorted one (the usual case) is used as is, without a copy. */
+export function inTimeOrder(series: readonly TimedVolume[]): readonly TimedVolume[] {
+  for (let i = 1; i < series.length; i++) {
+    if (series[i]!.time < series[i - 1]!.time) return [...series].sort((a, b) => a.time - b.time);
+  }
+  return series;
+}
+
+/**
+ * Feeds readings and logged deliveries merged in time order (a delivery logged at the same instant as a
+ * reading goes first); `take` sees each reading's point, valid only during the call.
+ */
+export function feedMerged(
+  estimator: Estimator,
+  readings: readonly TimedVolume[],
+  deliveries: readonly TimedVolume[],
+  take: (index: number, point: ScratchPoint) => void,
+): void {
+  const sortedReadings = inTimeOrder(readings);
+  const sortedDeliveries = inTimeOrder(deliveries);
+  let d = 0;
+  for (let i = 0; i < sortedReadings.length; i++) {
+    const reading = sortedReadings[i]!;
+    while (d < sortedDeliveries.length && sortedDeliveries[d]!.time <= reading.time) {
+      estimator.addDelivery(sortedDeliveries[d]!.time, sortedDeliveries[d]!.volume);
+      d++;
+    }
+    take(i, estimator.step(reading.time, reading.volume));
+  }
+  for (; d < sortedDeliveries.length; d++)
+    estimator.addDelivery(sortedDeliveries[d]!.time, sortedDeliveries[d]!.volume);
+}
+
+export function columnsFrom(
+  estimator: Estimator,
+  readings: readonly TimedVolume[],
+  deliveries: readonly TimedVolume[],
+): SeriesColumns {
+  const n = readings.length;
+  const c: SeriesColumns = {
+    length: n,
+    time: new Float64Array(n),
+    volume: new Float64Array(n),
+    rate: new Float64Array(n),
+    rateLow: new Float64Array(n),
+    rateHigh: new Float64Array(n),
+    rateSigma: new Float64Array(n),
+    readings: new Float64Array(n),
+    basisDays: new Float64Array(n),
+    suspect: [],
+    events: [],
+    changes: [],
+    suspects: [],
+  };
+  const suspect = c.suspect;
+  feedMerged(estimator, readings, deliveries, (i, p) => {
+    c.time[i] = p.time;
+    c.volume[i] = p.volume;
+    c.rate[i] = p.rate;
+    c.rateLow[i] = p.rateLow;
+    c.rateHigh[i] = p.rateHigh;
+    c.rateSigma[i] = p.rateSigma;
+    c.readings[i] = p.readings;
+    c.basisDays[i] = p.basisDays;
+    suspect.push(p.suspect);
+  });
+  c.events = [...estimator.events];
+  c.changes = [...estimator.changes];
+  c.suspects = [...estimator.suspects];
+  return c;
+}
+
+/** Point `i` of the columns as a RatePoint. */
+export function pointAt(c: SeriesColumns, i: number): RatePoint {
+  return {
+    time: c.time[i]!,
+    volume: c.volume[i]!,
+    rate: c.rate[i]!,
+    rateLow: c.rateLow[i]!,
+    rateHigh: c.rateHigh[i]!,
+    rateSigma: c.rateSigma[i]!,
+    suspect: c.suspect[i],
+    readings: c.readings[i]!,
+    basisDays: c.basisDays[i]!,
+  };
+}
+
+/** Every point as a RatePoint (for callers that want objects). */
+export function pointsOf(c: SeriesColumns): RatePoint[] {
+  const points: RatePoint[] = new Array(c.length);
+  for (let i = 0; i < c.length; i++) points[i] = pointAt(c, i);
+  return points;
+}
