@@ -90,15 +90,20 @@ export const digestSection: BenchSection = {
       });
       // The two halves of digestFromStore, timed apart: every tank's status, then composing and fitting.
       const statuses = new Map<string, TankStatus[]>();
-      const status = timeMs(() => {
-        let n = 0;
-        for (const team of all) {
-          const list = store.tanks.list(team.id).map((tank) => tankStatus(store, team.id, tank.id, NOW)!);
-          statuses.set(team.id, list);
-          n += list.length;
-        }
-        return n;
-      });
+      const allStatuses = (now: number) =>
+        timeMs(() => {
+          let n = 0;
+          for (const team of all) {
+            const list = store.tanks.list(team.id).map((tank) => tankStatus(store, team.id, tank.id, now)!);
+            statuses.set(team.id, list);
+            n += list.length;
+          }
+          return n;
+        });
+      // Cold: the first look at every tank (the stored rate state is built). Warm: the next morning's case,
+      // when the bot has kept each tank's rate state as readings came in.
+      const status = allStatuses(NOW);
+      const warm = allStatuses(NOW + 60_000);
       const compose = timeMs(() => {
         let chars = 0;
         for (const team of all) {
@@ -115,27 +120,26 @@ export const digestSection: BenchSection = {
         return chars;
       });
       const scale = `${teams.toLocaleString('en-US')} teams x 50 tanks`;
+      const vsScan = { name: 'raw store scan alone', value: scan.ms };
       return [
         {
-          name: `all digests built, ${scale} (tank statuses + compose)`,
+          name: `cold: all digests built, ${scale} (first tankStatus of every tank + compose)`,
           value: status.ms + compose.ms,
           unit: 'ms',
-          baseline: { name: 'raw store scan alone', value: scan.ms },
+          baseline: vsScan,
           goal: '< 2,000 ms for 1,000 teams',
         },
         {
-          name: `  of which tankStatus for every tank`,
-          value: status.ms,
+          name: `warm: all digests built, ${scale} (rate state kept + compose)`,
+          value: warm.ms + compose.ms,
           unit: 'ms',
-          baseline: { name: 'raw store scan alone', value: scan.ms },
+          baseline: vsScan,
+          goal: '< 2,000 ms for 1,000 teams',
         },
-        {
-          name: `  of which compose + fit (bot/schedule)`,
-          value: compose.ms,
-          unit: 'ms',
-          baseline: { name: 'raw store scan alone', value: scan.ms },
-        },
-        { name: 'per digest (50 tanks)', value: (status.ms + compose.ms) / teams, unit: 'ms' },
+        { name: '  of which tankStatus, cold', value: status.ms, unit: 'ms', baseline: vsScan },
+        { name: '  of which tankStatus, warm', value: warm.ms, unit: 'ms', baseline: vsScan },
+        { name: '  of which compose + fit (bot/schedule)', value: compose.ms, unit: 'ms', baseline: vsScan },
+        { name: 'per digest (50 tanks), warm', value: (warm.ms + compose.ms) / teams, unit: 'ms' },
       ];
     } finally {
       store.close();
