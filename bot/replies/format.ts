@@ -24,13 +24,25 @@ export function sensibleDecimals(value: number): number {
   return digits >= -1 ? Math.min(2, Math.max(0, 2 - digits)) : 3;
 }
 
+// One formatter per number of decimals: toLocaleString builds a new Intl.NumberFormat on every call, which
+// dominated composing a digest of many tanks.
+const numberFormats = new Map<number, Intl.NumberFormat>();
+function numberFormat(decimals: number): Intl.NumberFormat {
+  let format = numberFormats.get(decimals);
+  if (!format) {
+    format = new Intl.NumberFormat('en-US', {
+      minimumFractionDigits: decimals,
+      maximumFractionDigits: decimals,
+    });
+    numberFormats.set(decimals, format);
+  }
+  return format;
+}
+
 /** "1,234", "412", "12.4", "3.27"; a non-finite value reads "?" rather than "NaN". */
 export function formatNumber(value: number, decimals = sensibleDecimals(value)): string {
   if (!Number.isFinite(value)) return '?';
-  const text = value.toLocaleString('en-US', {
-    minimumFractionDigits: decimals,
-    maximumFractionDigits: decimals,
-  });
+  const text = numberFormat(decimals).format(value);
   // -0 and tiny negatives that round to zero should not read "-0".
   return /^-0(\.0+)?$/.test(text) ? text.slice(1) : text;
 }
