@@ -3,6 +3,7 @@
 
 import type { TimedVolume } from '../engine/rate/index.js';
 import { fail, ok, type Result } from '../engine/result.js';
+import { parseInstant } from './iso-instant.js';
 
 export type ReadingColumn = 'volume' | 'level' | 'percent';
 
@@ -25,16 +26,8 @@ export type ToLitres = (column: ReadingColumn, value: number) => Result<number>;
 /** Turns a logged delivery in the volume unit into litres. */
 export type DeliveredToLitres = (value: number) => number;
 
-// ISO 8601 date-time with a UTC offset or Z (seconds and fractions optional).
-const ISO_INSTANT = /^\d{4}-\d{2}-\d{2}[T ]\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}(:?\d{2})?)$/i;
-
-export function parseInstant(text: string): number | null {
-  if (!ISO_INSTANT.test(text)) return null;
-  const normal =
-    text.length === 20 && text[10] === 'T' ? text : text.replace(' ', 'T').replace(/([+-]\d{2})$/, '$1:00');
-  const ms = Date.parse(normal);
-  return Number.isFinite(ms) ? ms : null;
-}
+/** ISO 8601 instant with Z or an offset (the fast parser lives in iso-instant.ts). */
+export { parseInstant } from './iso-instant.js';
 
 const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
@@ -44,11 +37,17 @@ function parseNumber(text: string): number | null {
   return Number.isFinite(n) ? n : null;
 }
 
-const unquote = (cell: string) =>
-  cell
+// A cell that starts and ends with a printable ASCII character other than a quote (nearly every cell) has
+// nothing to trim or unquote: returned as is, without the regexes.
+const plainEnd = (code: number) => code > 34 && code < 127;
+const unquote = (cell: string) => {
+  const n = cell.length;
+  if (n > 0 && plainEnd(cell.charCodeAt(0)) && plainEnd(cell.charCodeAt(n - 1))) return cell;
+  return cell
     .trim()
     .replace(/^"(.*)"$/, '$1')
     .trim();
+};
 
 /** Parses the whole CSV text; a header problem is an error, a row problem is reported and skipped. */
 export function parseReadingsCsv(

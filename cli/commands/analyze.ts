@@ -5,10 +5,11 @@ import { readFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import { runwayTo } from '../../engine/forecast/runway.js';
 import { buildTank, type Tank, volumeAtLevel } from '../../engine/geometry/index.js';
-import { analyzeSeries, type SeriesAnalysis } from '../../engine/rate/index.js';
+import { analyzeSeriesColumns, pointsOf, type SeriesColumns } from '../../engine/rate/index.js';
 import { fail, ok, type Result } from '../../engine/result.js';
 import { fromLitres, isVolumeUnit, toLitres, toMetres, type VolumeUnit } from '../../engine/units/index.js';
 import { type CliCommand, type CliIo, UsageError } from '../io.js';
+import { createInstantFormatter } from '../iso-instant.js';
 import { parseReadingsCsv, type ReadingColumn, type ReadingsTable } from '../readings-csv.js';
 import { refillOption, refillSummary } from '../refill-option.js';
 
@@ -60,10 +61,7 @@ export interface AnalyzeOutput {
 }
 
 /** ISO 8601 in UTC, without a ".000" when the instant is on a whole second. */
-export const isoTime = (ms: number): string => {
-  const text = new Date(ms).toISOString();
-  return text.endsWith('.000Z') ? `${text.slice(0, -5)}Z` : text;
-};
+export const isoTime = createInstantFormatter();
 /** Run-out instants to the second: finer would claim a precision the forecast does not have. */
 const toSecond = (ms: number) => Math.round(ms / 1000) * 1000;
 /** Rounds to about 8 significant digits, cheaply (toPrecision is slow over 100k points). */
@@ -79,10 +77,16 @@ const tidy = (x: number): number => {
  * A tank whose trusted rate is negative (rising) at most points past the first fifth of the series is a
  * filling tank (waste, produced water): its drops are pick-ups and its runway runs to full.
  */
-export function isFillingSeries(analysis: SeriesAnalysis): boolean {
-  const points = analysis.points.slice(Math.floor(analysis.points.length / 5)).filter((p) => !p.suspect);
-  if (points.length < 3) return false;
-  return points.filter((p) => p.rate < 0).length > 0.6 * points.length;
+export function isFillingSeries(analysis: SeriesColumns): boolean {
+  let trusted = 0;
+  let rising = 0;
+  for (let i = Math.floor(analysis.length / 5); i < analysis.length; i++) {
+    if (analysis.suspect[i]) continue;
+    trusted++;
+    if (analysis.rate[i]! < 0) rising++;
+  }
+  if (trusted < 3) return false;
+  return rising > 0.6 * trusted;
 }
 
 /** The analysis JSON from readings already in litres: points, events, changes and suspect readings. */
@@ -91,7 +95,7 @@ export function buildAnalyzeOutput(
   options: AnalyzeOptions,
 ) {
   const run = (filling: boolean) =>
-    analyzeSeries(table.readings, table.deliveries, {
+    analyzeSeriesColumns(table.readings, table.deliveries, {
       filling,
       ...(options.capacity !== null ? { capacity: options.capacity } : {}),
     });
@@ -109,17 +113,29 @@ export function buildAnalyzeOutput(
   return { analysis, output: outputFrom(analysis, resolved), options: resolved };
 }
 
-function outputFrom(analysis: SeriesAnalysis, options: AnalyzeOptions): AnalyzeOutput {
+function outputFrom(analysis: SeriesColumns, options: AnalyzeOptions): AnalyzeOutput {
   const unit = options.volumeUnit;
   const out = (litres: number) => tidy(fromLitres(litres, unit));
   const days = (d: number | null) => (d === null ? null : tidy(d));
-  const points = analysis.points.map((p): AnalyzePoint => {
+  const runwayOptions = { filling: options.filling === true };
+  const target = options.target === null ? null : { volume: options.target };
+  const points: AnalyzePoint[] = new Array(analysis.length);
+  const p = { time: 0, volume: 0, rate: 0, rateLow: 0, rateHigh: 0 };
+  // One formatter per column, so each keeps its own day cached (run-out instants lie days ahead).
+  const timeText = createInstantFormatter();
+  const runoutText = createInstantFormatter();
+  for (let i = 0; i < analysis.length; i++) {
+    p.time = analysis.time[i]!;
+    p.volume = analysis.volume[i]!;
+    p.rate = analysis.rate[i]!;
+    p.rateLow = analysis.rateLow[i]!;
+    p.rateHigh = analysis.rateHigh[i]!;
     const runway =
-      options.target === null
+      target === null
         ? { days: null, daysLow: null, daysHigh: null, runoutAt: null }
-        : runwayTo(p, { volume: options.target }, { filling: options.filling === true });
-    return {
-      time: isoTime(p.time),
+        : runwayTo(p, target, runwayOptions);
+    points[i] = {
+      time: timeText(p.time),
       volume: out(p.volume),
       rate: out(p.rate),
       rateLow: out(p.rateLow),
@@ -127,13 +143,13 @@ function outputFrom(analysis: SeriesAnalysis, options: AnalyzeOptions): AnalyzeO
       runwayDays: days(runway.days),
       runwayDaysLow: days(runway.daysLow),
       runwayDaysHigh: days(runway.daysHigh),
-      runoutAt: runway.runoutAt === null ? null : isoTime(toSecond(runway.runoutAt)),
+      runoutAt: runway.runoutAt === null ? null : runoutText(toSecond(runway.runoutAt)),
     };
-  });
+  }
   // Readings still waiting for confirmation at the end are untrusted too.
   const trailing: { time: number; reason: string }[] = [];
-  for (let i = analysis.points.length - 1; i >= 0 && analysis.points[i]!.suspect !== undefined; i--) {
-    trailing.unshift({ time: analysis.points[i]!.time, reason: analysis.points[i]!.suspect! });
+  for (let i = analysis.length - 1; i >= 0 && analysis.suspect[i] !== undefined; i--) {
+    trailing.unshift({ time: analysis.time[i]!, reason: analysis.suspect[i]! });
   }
   return {
     volumeUnit: unit,
@@ -292,7 +308,8 @@ export const analyzeCommand: CliCommand = {
     const refill = await refillOption(
       values,
       { ...resolved, filling: resolved.filling === true },
-      analysis.points,
+      // RatePoint objects only when a refill plan needs them.
+      values.plan === undefined ? [] : pointsOf(analysis),
     );
     const full = refill ? { ...output, refill } : output;
     io.stdout.write(values.json ? `${JSON.stringify(full)}\n` : summary(output) + refillSummary(refill));
