@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ok } from '../engine/result.js';
 import { parseInstant, parseReadingsCsv } from './readings-csv.js';
@@ -51,5 +52,32 @@ describe('parseReadingsCsv', () => {
     expect(parseInstant('2026-01-01T00:00:00.5Z')).toBe(Date.UTC(2026, 0, 1) + 500);
     expect(parseInstant('2026-01-01T00:00-0130')).toBe(Date.UTC(2026, 0, 1, 1, 30));
     expect(parseInstant('yesterday')).toBeNull();
+  });
+});
+
+describe('parseReadingsCsv on any row order', () => {
+  // The in-order fast path and the map must agree: a shuffled file gives the sorted readings, one per
+  // instant (the first row's value wins), and a duplicate with another value is reported at its own line.
+  it('gives the same readings and problems as the rows sorted by time', () => {
+    fc.assert(
+      fc.property(fc.array(fc.record({ hour: fc.nat(30), value: fc.nat(5) }), { maxLength: 40 }), (rows) => {
+        const iso = (h: number) => new Date(Date.UTC(2026, 0, 1, h)).toISOString();
+        const text = ['time,volume', ...rows.map((r) => `${iso(r.hour)},${r.value}`)].join('\n');
+        const table = parseReadingsCsv(text, asLitres, same);
+        if (!table.ok) throw new Error(table.error);
+        const first = new Map<number, { value: number; line: number }>();
+        const problems: number[] = [];
+        rows.forEach((r, i) => {
+          const seen = first.get(r.hour);
+          if (!seen) first.set(r.hour, { value: r.value, line: i + 2 });
+          else if (seen.value !== r.value) problems.push(i + 2);
+        });
+        const expected = [...first.entries()]
+          .sort((a, b) => a[0] - b[0])
+          .map(([h, r]) => ({ time: Date.UTC(2026, 0, 1, h), volume: r.value }));
+        expect(table.value.readings).toEqual(expected);
+        expect(table.value.problems.map((p) => p.line)).toEqual(problems);
+      }),
+    );
   });
 });

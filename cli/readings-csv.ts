@@ -55,7 +55,12 @@ export function parseReadingsCsv(
   toLitres: ToLitres,
   deliveredToLitres: DeliveredToLitres,
 ): Result<ReadingsTable> {
-  const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
+  // split('\n') then a trailing '\r' dropped per line: the same lines as split(/\r?\n/), faster.
+  const lines = text.replace(/^\uFEFF/, '').split('\n');
+  for (let i = 0; i < lines.length; i++) {
+    const l = lines[i]!;
+    if (l.charCodeAt(l.length - 1) === 13) lines[i] = l.slice(0, -1);
+  }
   const header = (lines[0] ?? '').split(',').map((h) => unquote(h).toLowerCase());
   const timeAt = header.indexOf('time');
   if (timeAt < 0) return fail('the CSV header needs a "time" column (ISO 8601 with an offset or Z)');
@@ -68,7 +73,11 @@ export function parseReadingsCsv(
   const deliveredAt = header.indexOf('delivered');
 
   const problems: RowProblem[] = [];
-  const byTime = new Map<number, { volume: number; line: number }>();
+  // Rows in strictly increasing time (the usual file) go straight to a list; the first row that is not
+  // moves the list into a map keyed by time, which finds duplicates and is sorted at the end.
+  const inOrder: TimedVolume[] = [];
+  const inOrderLines: number[] = [];
+  let byTime: Map<number, { volume: number; line: number }> | null = null;
   const deliveries: TimedVolume[] = [];
   for (let i = 1; i < lines.length; i++) {
     const line = i + 1;
@@ -106,6 +115,18 @@ export function parseReadingsCsv(
       problems.push({ line, reason: litres.error });
       continue;
     }
+    if (byTime === null) {
+      const last = inOrder.length - 1;
+      if (last < 0 || time > inOrder[last]!.time) {
+        inOrder.push({ time, volume: litres.value });
+        inOrderLines.push(line);
+        continue;
+      }
+      byTime = new Map();
+      for (let k = 0; k < inOrder.length; k++) {
+        byTime.set(inOrder[k]!.time, { volume: inOrder[k]!.volume, line: inOrderLines[k]! });
+      }
+    }
     const earlier = byTime.get(time);
     if (earlier) {
       if (earlier.volume !== litres.value) {
@@ -118,9 +139,12 @@ export function parseReadingsCsv(
     }
     byTime.set(time, { volume: litres.value, line });
   }
-  const readings = [...byTime.entries()]
-    .map(([time, r]) => ({ time, volume: r.volume }))
-    .sort((a, b) => a.time - b.time);
+  const readings =
+    byTime === null
+      ? inOrder
+      : [...byTime.entries()]
+          .map(([time, r]) => ({ time, volume: r.volume }))
+          .sort((a, b) => a.time - b.time);
   deliveries.sort((a, b) => a.time - b.time);
   return ok({ column, readings, deliveries, problems });
 }
