@@ -5,12 +5,14 @@ import { createSlackAdapter, type SlackAdapter } from '../../adapters/slack/app.
 import type { Bot } from '../../bot/bot.js';
 import { renderChartPng } from '../../bot/replies/renderChart.js';
 import type { Reply } from '../../bot/replies/reply.js';
+import { defaultCommand } from '../../cli/serve-settings.js';
 import { interactionBody, postSigned, type SignedPostOptions, slashCommandBody } from './signed-request.js';
 import { type SocketStandIn, startSocketStandIn } from './socket-standin.js';
 import { startWebApiStandIn, type WebApiStandIn } from './web-api-standin.js';
 
 export const signingSecret = 'a1b2c3d4e5f60718293a4b5c6d7e8f90';
-export const command = '/tankrunway';
+// The command `serve` starts with when TANKRUNWAY_COMMAND is not set, so both tests speak the same one.
+export const command = defaultCommand;
 
 /** Keeps Bolt's log lines (a dropped socket logs errors on purpose in the tests) instead of printing them. */
 function keptLogger(lines: string[]): Logger {

@@ -8,7 +8,7 @@ import { digestFromStore } from '../../bot/schedule/digest.js';
 import { createScheduler } from '../../bot/schedule/scheduler.js';
 import type { Store } from '../../bot/store/index.js';
 import { addHypo, mention, openSlackE2e, type SlackE2e } from './e2e-session.js';
-import { type SlackHarness, signingSecret } from './harness.js';
+import { command, type SlackHarness, signingSecret } from './harness.js';
 import { slackSignature } from './signed-request.js';
 
 let e: SlackE2e;
@@ -211,7 +211,7 @@ describe('Slack, end to end over HTTP', () => {
     const form = 'application/x-www-form-urlencoded' as const;
     const { postSigned } = await import('./signed-request.js');
     const noTeam = new URLSearchParams({
-      command: '/tankrunway',
+      command,
       text: 'T4 60in',
       channel_id: 'C0ODD',
       user_id: 'U0ODD',
