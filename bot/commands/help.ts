@@ -80,6 +80,8 @@ const TOPICS: Record<HelpTopic, { title: string; examples: [string, string][] }>
 
 const OVERVIEW: HelpTopic[] = ['readings', 'deliveries', 'questions', 'corrections', 'setup', 'settings'];
 
+const MORE: HelpTopic[] = ['units', 'times', 'settings', 'corrections'];
+
 export function helpReply(topic?: HelpTopic): Reply {
   const topics = topic ? [topic] : OVERVIEW;
   const rows = topics.flatMap((t) =>
@@ -92,9 +94,9 @@ export function helpReply(topic?: HelpTopic): Reply {
       ? `${TOPICS[topic].title}: examples`
       : 'tank-runway logs tank readings and tells you how long each tank lasts and when to order. Examples:',
     table: { columns: ['', 'message', 'what it does'], rows },
-    ...(topic
-      ? {}
-      : { facts: [{ label: 'More', value: 'help units, help times, help settings, help corrections' }] }),
+    // The pointer to further topics comes after the table (actions render last), so "Examples:" leads
+    // straight into the examples.
+    ...(topic ? {} : { actions: MORE.map((t) => ({ label: `More: ${t}`, command: `help ${t}` })) }),
   };
 }
 
