@@ -1,6 +1,7 @@
 import { buildTank, type Tank as TankGeometry } from '../engine/geometry/index.js';
 import {
   createRateEstimator,
+  isRateEstimatorState,
   type RatePoint,
   restoreRateEstimator,
   type TankEvent,
@@ -56,8 +57,6 @@ export function seriesOf(
   return out;
 }
 
-const STATE_VERSION = createRateEstimator().toJSON().version;
-
 export interface RateResult {
   events: readonly TankEvent[];
   /** The point of the newest reading, and the newest trusted one (a suspect reading must not move figures). */
@@ -83,7 +82,7 @@ export function rateOf(
   const specKey = JSON.stringify([tank.spec, filling]);
   const cached = store.rateCache.get(teamId, tank.id);
   // A state from another engine version, or for another shape, is not resumed.
-  const cache = cached?.specKey === specKey && cached.state.version === STATE_VERSION ? cached : undefined;
+  const cache = cached?.specKey === specKey && isRateEstimatorState(cached.state) ? cached : undefined;
   const estimator = cache
     ? restoreRateEstimator(cache.state)
     : createRateEstimator({ capacity: geometry.capacity, filling });
