@@ -2,7 +2,7 @@ import { addTankHandler } from './commands/add-tank.js';
 import type { CommandContext } from './commands/handler.js';
 import type { ParseContext } from './language/command.js';
 import { parseMessage } from './language/index.js';
-import { isTankNameShaped } from './language/tankName.js';
+import { isReservedWord, isTankNameShaped } from './language/tankName.js';
 import { SHAPE_WORDS } from './language/tankSpecWords.js';
 import type { Reply } from './replies/reply.js';
 import { findTank, tankNamesOf } from './tank-lookup.js';
@@ -82,6 +82,8 @@ export function continueGuidedSetup(context: CommandContext, answer: string): Re
   switch (state.step) {
     case 'code': {
       if (!isTankNameShaped(text)) return [ask('code', `"${text.slice(0, 40)}" cannot be a code. `)];
+      // The same rule as the one-line `add tank`: a code such as "all" would be read as the bot's own word.
+      if (isReservedWord(text)) return [ask('code', `"${text}" is one of the bot's own words. `)];
       if (findTank(store, request.team, text)) return [ask('code', `You already have ${text}. `)];
       save(context, { step: 'shape', code: text });
       return [ask('shape')];
