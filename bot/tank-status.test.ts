@@ -131,6 +131,19 @@ describe('tankStatus', () => {
     expect(status.previous?.volume).toBeCloseTo((Math.PI * 24 ** 2 * 60) / 231, 6);
   });
 
+  it('moves the runway as soon as a delivery is logged, before the next reading', () => {
+    const tank = store.tanks.add(TEAM, { code: 'T4', spec }, 'u1', T0);
+    for (const [i, level] of [60, 58, 56, 54].entries()) addLevel(tank.id, T0 + i * DAY, level);
+    const now = T0 + 3.5 * DAY;
+    const before = tankStatus(store, TEAM, tank.id, now)!;
+    const delivery = { tankId: tank.id, time: T0 + 3.2 * DAY, volume: 100, unit: 'gal' };
+    store.deliveries.add(TEAM, { ...delivery, rawText: 'delivered 100 gal to T4', userId: 'u1' }, now);
+    const after = tankStatus(store, TEAM, tank.id, now)!;
+    // The rate is unchanged (a delivery is an event, not use): 100 gal more last 100 / rate days longer.
+    expect(after.rate?.value).toBeCloseTo(before.rate!.value, 9);
+    expect(after.runway!.days! - before.runway!.days!).toBeCloseTo(100 / after.rate!.value, 6);
+  });
+
   it('flags a level above the safe fill, and a threshold becomes the runway target', () => {
     const tank = store.tanks.add(
       TEAM,

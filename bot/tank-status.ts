@@ -173,7 +173,8 @@ export function tankStatus(
   status.overSafeFill = last.volume > safeFillLitres * (1 + 1e-9);
   const before = recent.readings[lastIndex - 1];
   if (before) status.previous = { time: before.time, volume: show(before.volume) };
-  const trusted = rate.trusted;
+  const trusted =
+    rate.trusted && withLaterDeliveries(rate.trusted, recent.deliveries, filling, geometry.capacity);
   if (trusted) {
     const sign = filling ? -1 : 1;
     status.rate = {
@@ -192,6 +193,24 @@ export function tankStatus(
     else status.refillProblem = plan.error;
   }
   return status;
+}
+
+/**
+ * The estimator takes a logged delivery (a pick-up on a filling tank) into its volume only at the next
+ * reading; until then the runway and the refill plan count it from the newest trusted point, as the volume
+ * it adds (or takes) at once, so logging a delivery moves the runway straight away.
+ */
+function withLaterDeliveries(
+  point: RatePoint,
+  deliveries: readonly { time: number; volume: number }[],
+  filling: boolean,
+  capacity: number,
+): RatePoint {
+  let added = 0;
+  for (const d of deliveries) if (d.time > point.time) added += d.volume;
+  if (added === 0) return point;
+  const volume = filling ? point.volume - added : point.volume + added;
+  return { ...point, volume: Math.min(capacity, Math.max(0, volume)) };
 }
 
 /** Thresholds when a tank has none of its own: order at 20% of capacity, or book a pick-up before the safe fill. */
