@@ -20,6 +20,8 @@ export interface DiscordSettings {
   token: string;
   applicationId: string;
   apiUrl?: string;
+  /** Registers the command in this one server (instant, for development) instead of globally. */
+  guildId?: string;
 }
 
 export interface ServeSettings {
@@ -80,6 +82,10 @@ const envSchema = z.object({
     'DISCORD_APPLICATION_ID must be the numeric application id',
   ),
   DISCORD_API_URL: url('DISCORD_API_URL'),
+  DISCORD_GUILD_ID: optionalText.refine(
+    (v) => v === undefined || /^\d{5,25}$/.test(v),
+    'DISCORD_GUILD_ID must be the numeric id of the development server',
+  ),
 });
 
 /** Reads serve's settings; the error is one line naming the setting to fix. */
@@ -109,7 +115,7 @@ export function parseServeSettings(env: Record<string, string | undefined>): Res
     };
   }
 
-  const anyDiscord = e.DISCORD_TOKEN ?? e.DISCORD_APPLICATION_ID ?? e.DISCORD_API_URL;
+  const anyDiscord = e.DISCORD_TOKEN ?? e.DISCORD_APPLICATION_ID ?? e.DISCORD_API_URL ?? e.DISCORD_GUILD_ID;
   if (anyDiscord !== undefined) {
     if (e.DISCORD_TOKEN === undefined)
       return fail('DISCORD_TOKEN is missing: Discord settings are set without it');
@@ -120,6 +126,7 @@ export function parseServeSettings(env: Record<string, string | undefined>): Res
       token: e.DISCORD_TOKEN,
       applicationId: e.DISCORD_APPLICATION_ID,
       apiUrl: e.DISCORD_API_URL,
+      ...(e.DISCORD_GUILD_ID === undefined ? {} : { guildId: e.DISCORD_GUILD_ID }),
     };
   }
   return ok(settings);

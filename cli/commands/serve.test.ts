@@ -222,6 +222,40 @@ describe('tankrunway serve: Slack and Discord in one process', () => {
   }, 60_000);
 });
 
+describe('tankrunway serve: Discord in one development server', () => {
+  it('registers the command in the server DISCORD_GUILD_ID names, not globally', async () => {
+    const appId = '700000000000000001';
+    const guild = '710000000000000077';
+    const gateway = await startGatewayStandIn({ applicationId: appId });
+    const rest = await startRestStandIn({ gatewayUrl: gateway.url, applicationId: appId });
+    const child = spawn(process.execPath, [bin, 'serve', '--db', join(dir, 'guild.sqlite')], {
+      env: {
+        ...baseEnv,
+        DISCORD_TOKEN: 'discord-test-token',
+        DISCORD_APPLICATION_ID: appId,
+        DISCORD_API_URL: rest.apiUrl,
+        DISCORD_GUILD_ID: guild,
+      },
+      stdio: ['ignore', 'ignore', 'pipe'],
+    });
+    let stderr = '';
+    child.stderr?.on('data', (d: Buffer) => {
+      stderr += d.toString('utf8');
+    });
+    try {
+      const put = await rest.waitFor((c) => c.method === 'PUT' && c.path.endsWith('/commands'), 20_000);
+      expect(put.path).toBe(`/applications/${appId}/guilds/${guild}/commands`);
+      expect(rest.calls.some((c) => c.path === `/applications/${appId}/commands`)).toBe(false);
+      child.kill('SIGTERM');
+      expect(await new Promise<number | null>((resolve) => child.once('exit', resolve))).toBe(0);
+    } finally {
+      if (child.exitCode === null) child.kill('SIGKILL');
+      await Promise.all([rest.close(), gateway.close()]);
+      if (!stderr.includes('Discord connected')) console.error(stderr);
+    }
+  }, 60_000);
+});
+
 describe('tankrunway serve: Slack over Socket Mode', () => {
   it('connects out with the app-level token, answers a command envelope, and needs no signing secret', async () => {
     const api = await startWebApiStandIn();

@@ -38,7 +38,8 @@ async function withoutSetToJson<T>(load: () => Promise<T>): Promise<T> {
 const usage =
   'usage: tankrunway serve --db FILE [--tick-seconds N] [--now ISO] | serve --slack-manifest [--public-url URL]\n' +
   'settings from the environment: SLACK_BOT_TOKEN, SLACK_SIGNING_SECRET, SLACK_APP_TOKEN, SLACK_API_URL, PORT,\n' +
-  'DISCORD_TOKEN, DISCORD_APPLICATION_ID, DISCORD_API_URL, TANKRUNWAY_COMMAND (see adapters/slack/README.md)\n';
+  'DISCORD_TOKEN, DISCORD_APPLICATION_ID, DISCORD_API_URL, DISCORD_GUILD_ID, TANKRUNWAY_COMMAND\n' +
+  '(see adapters/slack/README.md and adapters/discord/README.md)\n';
 
 /** A missed digest is still posted this long after it was due (a restart); older ones are skipped. */
 const GRACE_MINUTES = 120;
@@ -98,6 +99,7 @@ async function startPlatforms(
         token: d.token,
         applicationId: d.applicationId,
         ...(d.apiUrl ? { apiUrl: d.apiUrl } : {}),
+        ...(d.guildId ? { guildId: d.guildId } : {}),
         command: settings.command,
         tankNames: (team) => tankNamesOf(store.tanks.list(team)),
         renderChart: renderChartPng,
