@@ -39,8 +39,10 @@ export interface ScenarioMetrics {
   rateCovered: number;
   runwayErrors: number[];
   runwayCovered: number;
-  /** Hours after each rate change until the rate is within 20% and stays there a day. */
+  /** Hours after each rate change until the rate is within 20% of the regime rate and stays there a day. */
   lags: number[];
+  /** The same against the day's use (regime rate times the weekday factor; see Scenario.truth.dayUseAt). */
+  dayUseLags: number[];
 }
 
 function matchEvents(
@@ -125,11 +127,21 @@ export function scenarioMetrics(scenario: Scenario, result: MethodResult): Scena
     rateCovered: rateErrors.length > 0 ? rateCovered / rateErrors.length : Number.NaN,
     runwayErrors,
     runwayCovered: runwayCount > 0 ? runwayCovered / runwayCount : Number.NaN,
-    lags: adaptationLags(scenario, result.points),
+    lags: adaptationLags(scenario, result.points, scenario.truth.rateAt),
+    dayUseLags: adaptationLags(scenario, result.points, scenario.truth.dayUseAt),
   };
 }
 
-function adaptationLags(scenario: Scenario, points: MethodPoint[]): number[] {
+/**
+ * Hours after each rate change until the rate is within 20% of `truthAt` and stays there a day (240 when
+ * never within 10 days). Against the regime rate (a weekly mean) a weekend dip of up to a quarter can hold a
+ * faithful estimate outside the band for reasons other than the change; against the day's use it cannot.
+ */
+function adaptationLags(
+  scenario: Scenario,
+  points: MethodPoint[],
+  truthAt: (time: number) => number,
+): number[] {
   const lags: number[] = [];
   const end = points[points.length - 1]?.time ?? 0;
   const changes = scenario.truth.changes;
@@ -138,7 +150,7 @@ function adaptationLags(scenario: Scenario, points: MethodPoint[]): number[] {
     if (c + 3 * DAY_MS > Math.min(end, next)) return;
     const after = points.filter((p) => p.time >= c && p.time < Math.min(next, c + 10 * DAY_MS));
     const ok = after.map((p) => {
-      const truth = scenario.truth.rateAt(p.time);
+      const truth = truthAt(p.time);
       return Math.abs(p.rate - truth) <= 0.2 * Math.abs(truth);
     });
     let lag = 10 * 24;
@@ -174,6 +186,8 @@ export interface FamilySummary {
   runwayCoverage: number;
   lagMedianHours: number;
   lagWorstHours: number;
+  dayUseLagMedianHours: number;
+  dayUseLagWorstHours: number;
 }
 
 export const median = (xs: number[]): number => {
@@ -204,6 +218,7 @@ export function summarise(all: ScenarioMetrics[]): FamilySummary {
   const refill = f1(sum(all.map((m) => m.refill)));
   const withdrawal = f1(sum(all.map((m) => m.withdrawal)));
   const lags = all.flatMap((m) => m.lags);
+  const dayUseLags = all.flatMap((m) => m.dayUseLags);
   return {
     scenarios: all.length,
     refillF1: refill.f1,
@@ -217,5 +232,7 @@ export function summarise(all: ScenarioMetrics[]): FamilySummary {
     runwayCoverage: meanOf(all.map((m) => m.runwayCovered)),
     lagMedianHours: median(lags),
     lagWorstHours: lags.length ? Math.max(...lags) : Number.NaN,
+    dayUseLagMedianHours: median(dayUseLags),
+    dayUseLagWorstHours: dayUseLags.length ? Math.max(...dayUseLags) : Number.NaN,
   };
 }

@@ -32,6 +32,7 @@ const ROWS: [keyof FamilySummary, string, (x: number) => string][] = [
   ['runwayCoverage', 'runway ~80% range coverage', pct],
   ['lagMedianHours', 'adaptation lag, median (h)', (x) => num(x, 1)],
   ['lagWorstHours', 'adaptation lag, worst (h; 240 = not within 10 days)', (x) => num(x, 1)],
+  ['dayUseLagMedianHours', "adaptation lag against the day's use, median (h; check)", (x) => num(x, 1)],
 ];
 
 function familyTable(r: FamilyResult): string {
@@ -133,6 +134,12 @@ const md: string[] = [
   'there a day. Baselines, computed in the same run: the least-squares slope of the raw readings over the last',
   '7 days, and the same after removing rises larger than 5% of capacity (drops on filling tanks).',
   '',
+  'Check on the lag metric: its truth is the weekly mean, and weekends use up to a quarter less, so a faithful',
+  'estimate can sit outside the 20% band on a weekend for reasons other than the change. The rows "against',
+  "the day's use\" time the same lag against the regime rate times that day's weekday factor (the working-hour",
+  'shape averages out within a day). It does not come out shorter (see the goals table), so the weekly-mean',
+  'truth does not mask the lag; the goal is still judged on the original definition.',
+  '',
 ];
 for (const r of results) {
   md.push(
@@ -164,6 +171,9 @@ if (dense && manual) {
   const hourlyLag = median(
     denseFamily.perScenario.filter((p) => p.intervalMs === 3_600_000).flatMap((p) => p.metrics.lags),
   );
+  const hourlyDayUseLag = median(
+    denseFamily.perScenario.filter((p) => p.intervalMs === 3_600_000).flatMap((p) => p.metrics.dayUseLags),
+  );
   const better = (f: typeof dense) => Math.min(f.ls7.rateError, f['ls7-no-rises'].rateError);
   md.push(
     '| goal | measured | met |',
@@ -174,6 +184,7 @@ if (dense && manual) {
     `| dense runway error <= 6% | ${pct(e.runwayError)} | ${e.runwayError <= 0.06 ? 'yes' : 'no'} |`,
     `| dense lag <= 24 h at hourly sampling (median) | ${num(hourlyLag, 1)} h | ${hourlyLag <= 24 ? 'yes' : 'no'} |`,
     `| (dense lag, median over all sampling rates) | ${num(e.lagMedianHours, 1)} h | |`,
+    `| (check: dense lag at hourly sampling against the day's use) | ${num(hourlyDayUseLag, 1)} h | |`,
     `| manual delivery F1 >= 0.95 | ${num(m.refillF1)} | ${m.refillF1 >= 0.95 ? 'yes' : 'no'} |`,
     `| manual rate error <= 10% | ${pct(m.rateError)} | ${m.rateError <= 0.1 ? 'yes' : 'no'} |`,
     `| range coverage 70-90% (dense rate / manual rate) | ${pct(e.rateCoverage)} / ${pct(m.rateCoverage)} | ${[e.rateCoverage, m.rateCoverage].every((c) => c >= 0.7 && c <= 0.9) ? 'yes' : 'no'} |`,

@@ -35,6 +35,11 @@ export interface Scenario {
     events: TruthEvent[];
     /** Regime rate (litres/day, positive while emptying) at each instant: the steady use to estimate. */
     rateAt(time: number): number;
+    /**
+     * The regime rate times this calendar day's weekday factor: the mean use over the day (the working-hour
+     * shape averages out within a day, the weekend dip does not). What readings of that day can show.
+     */
+    dayUseAt(time: number): number;
     volumeAt(time: number): number;
     /** Instants where the regime rate changed. */
     changes: number[];
@@ -72,7 +77,6 @@ const START = Date.UTC(2026, 2, 2); // a Monday
 
 function shapeAt(t: number, spec: ScenarioSpec): number {
   const hour = ((t % DAY_MS) / HOUR_MS + 24) % 24;
-  const weekday = Math.floor((t - START) / DAY_MS) % 7; // 0 = Monday
   const work = hour >= 8 && hour < 17 ? 1 : 0;
   // Mean over a day is 1: share s in 9 working hours, the rest over 15.
   const daily =
@@ -81,10 +85,19 @@ function shapeAt(t: number, spec: ScenarioSpec): number {
       : work
         ? (spec.workHoursShare * 24) / 9
         : ((1 - spec.workHoursShare) * 24) / 15;
-  const weekFactor = weekday >= 5 ? spec.weekendFactor : 1;
-  const weekMean = (5 + 2 * spec.weekendFactor) / 7;
-  return (daily * weekFactor) / weekMean;
+  return (daily * weekdayFactor(t, spec)) / weekMean(spec);
 }
+
+/** Weekends use weekendFactor of a weekday's use. */
+function weekdayFactor(t: number, spec: ScenarioSpec): number {
+  const weekday = Math.floor((t - START) / DAY_MS) % 7; // 0 = Monday
+  return weekday >= 5 ? spec.weekendFactor : 1;
+}
+
+const weekMean = (spec: ScenarioSpec) => (5 + 2 * spec.weekendFactor) / 7;
+
+/** Use on this calendar day relative to the weekly mean: the day's mean of shapeAt. */
+const dayFactorAt = (t: number, spec: ScenarioSpec) => weekdayFactor(t, spec) / weekMean(spec);
 
 /** Simulates the true volume on a 5-minute grid with events; returns the grid and the truth. */
 function simulateTruth(spec: ScenarioSpec, rnd: Random) {
@@ -139,6 +152,7 @@ function simulateTruth(spec: ScenarioSpec, rnd: Random) {
     events,
     changes,
     rateAt: (time: number) => rateGrid[index(time)]!,
+    dayUseAt: (time: number) => rateGrid[index(time)]! * dayFactorAt(time, spec),
     volumeAt: (time: number) => volume[index(time)]!,
     n,
   };
@@ -226,6 +240,12 @@ export function buildScenario(name: string, spec: ScenarioSpec, seed: number): S
     intervalMs: spec.sensor ? spec.sensor.intervalMs : (7 / spec.manual!.perWeek) * DAY_MS,
     readings,
     logged,
-    truth: { events: truth.events, rateAt: truth.rateAt, volumeAt: truth.volumeAt, changes: truth.changes },
+    truth: {
+      events: truth.events,
+      rateAt: truth.rateAt,
+      dayUseAt: truth.dayUseAt,
+      volumeAt: truth.volumeAt,
+      changes: truth.changes,
+    },
   };
 }
