@@ -87,11 +87,8 @@ export function rateOf(
     ? restoreRateEstimator(cache.state)
     : createRateEstimator({ capacity: geometry.capacity, filling });
   const since = cache ? cache.asOfTime : Number.MIN_SAFE_INTEGER;
-  const fresh = seriesOf(
-    geometry,
-    store.readings.series(teamId, tank.id, since),
-    store.deliveries.forTank(teamId, tank.id, { since: since + 1 }),
-  );
+  const rows = store.readings.series(teamId, tank.id, since);
+  const fresh = seriesOf(geometry, rows, store.deliveries.forTank(teamId, tank.id, { since: since + 1 }));
   let latest = cache?.points.latest ?? null;
   let trusted = cache?.points.trusted ?? null;
   let d = 0;
@@ -107,10 +104,14 @@ export function rateOf(
   const skipped = (cache?.skipped ?? 0) + fresh.skipped;
   const newest = fresh.readings[fresh.readings.length - 1];
   if (newest) {
+    // Rows after the newest converted reading were all skipped, and the next call reads them again (it
+    // resumes after `newest`): the cached count leaves them out, or they would be counted twice.
+    let skippedAfter = 0;
+    for (let i = rows.length - 1; i >= 0 && rows[i]!.time > newest.time; i--) skippedAfter++;
     store.rateCache.put(teamId, tank.id, {
       asOfTime: newest.time,
       readings,
-      skipped,
+      skipped: skipped - skippedAfter,
       specKey,
       state: estimator.toJSON(),
       points: { latest, trusted },

@@ -10,7 +10,7 @@ import { toPlainText } from '../replies/plainText.js';
 import type { Fact, Reply } from '../replies/reply.js';
 import type { Store } from '../store/open-store.js';
 import type { Team } from '../store/types.js';
-import { type TankStatus, tankStatus } from '../tank-status.js';
+import type { TankStatus } from '../tank-status.js';
 import {
   byRunway,
   deliveryLines,
@@ -21,6 +21,7 @@ import {
   problemLines,
   runwayRow,
 } from './digest-sections.js';
+import { digestStatuses } from './digest-statuses.js';
 import { postsRepo } from './posts.js';
 import { orderLines } from './site-orders.js';
 
@@ -157,11 +158,7 @@ export function composeDigest(input: DigestInput): Reply {
 
 /** The digest of a team from the store: every live tank's status at `now`. */
 export function digestFromStore(store: Store, team: Team, now: number, since: number | null): Reply {
-  const statuses: TankStatus[] = [];
-  for (const tank of store.tanks.list(team.id)) {
-    const status = tankStatus(store, team.id, tank.id, now);
-    if (status) statuses.push(status);
-  }
+  const statuses = digestStatuses(store, team.id, now);
   return composeDigest({
     teamName: team.name,
     timeZone: team.timeZone,

@@ -1,0 +1,144 @@
+import fc from 'fast-check';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { type TempStore, tempStore } from '../../test/schedule/helpers.js';
+import type { Store } from '../store/index.js';
+import type { TankSettings } from '../store/types.js';
+import { type TankStatus, tankStatus } from '../tank-status.js';
+import { composeDigest } from './digest.js';
+import { digestStatuses } from './digest-statuses.js';
+
+// Random teams in our invented demo scenario (Kestrel Valley Water Co-op sites); the fast digest path must
+// give exactly the statuses, and so the digest, that `tankStatus` gives tank by tank.
+const DAY = 86_400_000;
+const HOUR = 3_600_000;
+const NOW = Date.parse('2026-12-02T13:00:00Z');
+const SITES = ['Ridge Pump Station', 'Mill Creek Lift Station', 'North Yard'];
+const drum = { units: { length: 'in', volume: 'gal' }, shape: 'vertical-cylinder', diameter: 48, length: 72 };
+
+let temp: TempStore;
+let store: Store;
+beforeEach(() => {
+  temp = tempStore();
+  store = temp.open();
+});
+afterEach(() => temp.cleanup());
+
+const tankArb = fc.record({
+  product: fc.constantFrom('diesel', 'sodium hypochlorite 12.5%', 'potable water', 'wastewater sludge'),
+  threshold: fc.option(fc.integer({ min: 5, max: 60 }), { nil: undefined }),
+  leadTimeDays: fc.integer({ min: 0, max: 10 }),
+  businessDays: fc.boolean(),
+  filling: fc.boolean(),
+  // Readings: hours after the first one and gallons (some spikes, some above the drum's 564 gal).
+  readings: fc.array(fc.tuple(fc.integer({ min: 1, max: 96 }), fc.integer({ min: 0, max: 600 })), {
+    maxLength: 25,
+  }),
+  deliveries: fc.array(fc.tuple(fc.integer({ min: 0, max: 40 * 24 }), fc.integer({ min: 1, max: 300 })), {
+    maxLength: 2,
+  }),
+  startDaysAgo: fc.integer({ min: 0, max: 40 }),
+});
+
+type TankCase = typeof tankArb extends fc.Arbitrary<infer T> ? T : never;
+
+function seedTeam(team: string, zone: string, tanks: TankCase[]): void {
+  store.transaction(() => {
+    store.teams.ensure(team, NOW - 90 * DAY, { name: 'Kestrel Valley Water Co-op', timeZone: zone });
+    tanks.forEach((t, i) => {
+      const settings: TankSettings = {
+        leadTimeDays: t.leadTimeDays,
+        businessDays: t.businessDays,
+        ...(t.threshold !== undefined ? { threshold: { percent: t.threshold } } : {}),
+        ...(t.filling ? { filling: true } : {}),
+      };
+      const spec = i === 3 ? { ...drum, diameter: -1 } : drum; // an invalid stored shape now and then
+      const tank = store.tanks.add(
+        team,
+        { code: `T${i}`, site: SITES[i % SITES.length]!, product: t.product, spec, settings },
+        'u1',
+        NOW - 90 * DAY,
+      );
+      let time = NOW - t.startDaysAgo * DAY;
+      for (const [hours, gal] of t.readings) {
+        time += hours * HOUR;
+        if (time > NOW) break;
+        const reading = { tankId: tank.id, time, kind: 'volume' as const, value: gal, unit: 'gal' };
+        store.readings.add(team, { ...reading, rawText: `${gal} gal`, userId: 'u1' }, time);
+      }
+      for (const [hours, gal] of t.deliveries) {
+        const at = NOW - hours * HOUR;
+        const delivery = { tankId: tank.id, time: at, volume: gal, unit: 'gal' };
+        store.deliveries.add(team, { ...delivery, rawText: `delivered ${gal} gal`, userId: 'u1' }, at);
+      }
+    });
+  });
+}
+
+/** The reference: each tank's status on its own, with no stored rate state (every reading replayed). */
+function oneByOne(team: string, now: number): TankStatus[] {
+  store.db.exec('DELETE FROM rate_cache');
+  return store.tanks.list(team).flatMap((t) => {
+    const s = tankStatus(store, team, t.id, now);
+    return s ? [s] : [];
+  });
+}
+
+describe('digestStatuses', () => {
+  it('gives the statuses and digest of tankStatus tank by tank, cold and warm, on random teams', () => {
+    let n = 0;
+    fc.assert(
+      fc.property(
+        fc.array(tankArb, { minLength: 0, maxLength: 5 }),
+        fc.constantFrom('America/Chicago', 'Europe/Berlin', 'Australia/Sydney', 'UTC'),
+        fc.integer({ min: 0, max: 2 * DAY }),
+        (tanks, zone, later) => {
+          const team = `console:kestrel-${n++}`;
+          seedTeam(team, zone, tanks);
+          const now = NOW + later;
+          const expected = oneByOne(team, now);
+          store.db.exec('DELETE FROM rate_cache');
+          const cold = digestStatuses(store, team, now);
+          const warm = digestStatuses(store, team, now);
+          expect(cold).toEqual(expected);
+          expect(warm).toEqual(expected);
+          const digest = (statuses: TankStatus[]) =>
+            composeDigest({
+              teamName: 'Kestrel',
+              timeZone: zone,
+              demo: false,
+              now,
+              since: now - DAY,
+              statuses,
+            });
+          expect(digest(warm)).toEqual(digest(expected));
+        },
+      ),
+      { numRuns: 40 },
+    );
+  });
+
+  it('keeps the rate state it builds (one commit for the team) and nothing else changes in the store', () => {
+    seedTeam('console:kestrel', 'America/Chicago', [
+      {
+        product: 'diesel',
+        threshold: 25,
+        leadTimeDays: 2,
+        businessDays: false,
+        filling: false,
+        readings: Array.from({ length: 10 }, (_, i) => [24, 500 - 20 * i] as [number, number]),
+        deliveries: [],
+        startDaysAgo: 12,
+      },
+    ]);
+    const count = (table: string) =>
+      (store.db.prepare(`SELECT count(*) AS n FROM ${table}`).get() as { n: number }).n;
+    const before = { readings: count('readings'), deliveries: count('deliveries'), tanks: count('tanks') };
+    store.db.exec('DELETE FROM rate_cache');
+    digestStatuses(store, 'console:kestrel', NOW);
+    expect(count('rate_cache')).toBe(1);
+    expect({ readings: count('readings'), deliveries: count('deliveries'), tanks: count('tanks') }).toEqual(
+      before,
+    );
+    expect(digestStatuses(store, 'console:unknown-team', NOW)).toEqual([]);
+  });
+});

@@ -1,0 +1,20 @@
+/**
+ * Every live tank's status for a team's digest, read in one SQLite transaction per team. The store runs
+ * WAL with `synchronous = FULL`, so outside a transaction each rate-cache write of a first look at a tank is
+ * its own commit and sync, and each read takes and drops its own snapshot; one transaction makes the team's
+ * 50-odd statuses one commit (or one read snapshot), and every tank is seen as of the same instant.
+ * The statuses are exactly those of `tankStatus`, tank by tank.
+ */
+import type { Store } from '../store/open-store.js';
+import { type TankStatus, tankStatus } from '../tank-status.js';
+
+export function digestStatuses(store: Store, teamId: string, now: number): TankStatus[] {
+  return store.transaction(() => {
+    const statuses: TankStatus[] = [];
+    for (const tank of store.tanks.list(teamId)) {
+      const status = tankStatus(store, teamId, tank.id, now);
+      if (status) statuses.push(status);
+    }
+    return statuses;
+  });
+}
