@@ -2,6 +2,7 @@
 // Days are local calendar dates in the tank's zone, counted as whole numbers so that stepping over weekends
 // and delivery weekdays is plain arithmetic; luxon turns dates into instants and back (zones, DST days).
 import { DateTime } from 'luxon';
+import { civilDay } from './civilDay.js';
 import type { RefillSettings } from './settings.js';
 
 export type OrderCalendar = Pick<
@@ -21,8 +22,7 @@ const isWeekend = (day: CivilDay) => weekdayOf(day) >= 6;
 
 /** The local date of an instant. */
 export function civilDayOf(ms: number, timeZone: string): CivilDay {
-  const t = DateTime.fromMillis(ms, { zone: timeZone });
-  return Date.UTC(t.year, t.month - 1, t.day) / DAY_MS;
+  return civilDay(ms, timeZone);
 }
 
 const instants = new Map<string, number>();
