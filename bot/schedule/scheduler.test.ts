@@ -363,3 +363,51 @@ describe('bad data never stops the scheduler', () => {
     );
   });
 });
+
+describe('pruning stored dedupe keys', () => {
+  const DAY = 24 * HOUR;
+  const keys = (s: Store, team: string) =>
+    s.db
+      .prepare<[string], { k: string }>(
+        'SELECT dedupe_key AS k FROM processed_requests WHERE team_id = ? ORDER BY k',
+      )
+      .all(team)
+      .map((r) => r.k);
+
+  it('drops keys older than the kept window, per team, at most once a day', async () => {
+    const t0 = utc('2026-11-20T12:00:00Z');
+    for (const team of ['slack:T1', 'discord:2']) {
+      store.teams.ensure(team, t0 - 30 * DAY);
+      store.processedRequests.record(team, 'old', [], t0 - 8 * DAY);
+      store.processedRequests.record(team, 'recent', [], t0 - 6 * DAY);
+    }
+    const clock = { value: t0 };
+    const { sch } = scheduler(store, clock, { claimNotices: false });
+    await sch.tick(t0);
+    expect(keys(store, 'slack:T1')).toEqual(['recent']);
+    expect(keys(store, 'discord:2')).toEqual(['recent']);
+
+    // A key that ages past the window half a day later stays until a day has gone by since the last prune.
+    store.processedRequests.record('slack:T1', 'borderline', [], t0 - 7 * DAY + HOUR);
+    await sch.tick(t0 + 12 * HOUR);
+    expect(keys(store, 'slack:T1')).toEqual(['borderline', 'recent']);
+    await sch.tick(t0 + DAY);
+    expect(keys(store, 'slack:T1')).toEqual(['recent']);
+    // A redelivery of a key inside the window is still answered from the store.
+    expect(store.processedRequests.find('slack:T1', 'recent')).toEqual([]);
+  });
+
+  it('a process that is not the leader prunes nothing', async () => {
+    const t0 = utc('2026-11-20T12:00:00Z');
+    store.teams.ensure('slack:T1', t0 - 30 * DAY);
+    store.processedRequests.record('slack:T1', 'old', [], t0 - 8 * DAY);
+    const clock = { value: t0 };
+    const leader = scheduler(store, clock, { claimNotices: false, holder: 'a' });
+    await leader.sch.tick(t0 - 10 * DAY);
+    const other = scheduler(store, clock, { claimNotices: false, holder: 'b' });
+    await other.sch.tick(t0 - 10 * DAY + 20_000);
+    store.processedRequests.record('slack:T1', 'older', [], t0 - 20 * DAY);
+    await other.sch.tick(t0 - 10 * DAY + 40_000);
+    expect(keys(store, 'slack:T1')).toEqual(['old', 'older']);
+  });
+});

@@ -85,6 +85,11 @@ export interface Scheduler {
 }
 
 const DAY = 86_400_000;
+/**
+ * Dedupe keys are kept this long. Platforms redeliver an event within minutes to hours (common practice, from
+ * memory: Slack retries within about an hour, Discord replays a resumed session's events), so a week is ample.
+ */
+export const DEDUPE_KEEP_MS = 7 * DAY;
 
 export function createScheduler(options: SchedulerOptions): Scheduler {
   const { store, deliver, clock } = options;
@@ -98,6 +103,8 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
   const lease = createLease(store.db, 'scheduler', holder, leaseTtlMs);
   const posts = postsRepo(store.db);
   const calendar = createDigestCalendar();
+  /** When this process last pruned dedupe keys; at most once a day, and only as the leader. */
+  let prunedAt = Number.NEGATIVE_INFINITY;
 
   /** Claims a post in one IMMEDIATE transaction that first re-checks the lease. */
   const claimIfLeader = store.db.transaction((key: PostKey, dueAt: number, replies: Reply[], now: number) => {
@@ -172,8 +179,11 @@ export function createScheduler(options: SchedulerOptions): Scheduler {
       if (error instanceof LeaseLostError) throw error;
       log({ type: 'compose-failed', teamId, error: error instanceof Error ? error.message : String(error) });
     };
+    const pruneNow = now - prunedAt >= DAY;
+    if (pruneNow) prunedAt = now;
     try {
       for (const team of store.teams.list()) {
+        if (pruneNow) store.processedRequests.prune(team.id, now - DEDUPE_KEEP_MS);
         const due = calendar.due(team, now, graceMs + DAY);
         try {
           for (const occurrence of due) claimDigest(team, occurrence, now);
