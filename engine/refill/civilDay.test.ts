@@ -43,6 +43,27 @@ describe('civilDay', () => {
     );
   });
 
+  it('gives luxon’s local date for instants with fractions of a millisecond (computed deadlines)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: -5e12, max: 5e12, noNaN: true }),
+        fc.constantFrom(...ZONES),
+        (ms, zone) => {
+          expect(civilDay(ms, zone)).toBe(civilDayLuxon(ms, zone));
+        },
+      ),
+      { numRuns: 2000 },
+    );
+    for (const at of TRANSITIONS) {
+      for (const zone of ZONES) {
+        for (const d of [-0.5, 0.25, -HOUR - 0.5, HOUR - 0.5]) {
+          expect(civilDay(at + d, zone)).toBe(civilDayLuxon(at + d, zone));
+          expect(civilDay(-at + d, zone)).toBe(civilDayLuxon(-at + d, zone));
+        }
+      }
+    }
+  });
+
   it('gives luxon’s local date to the millisecond around daylight-saving changes and midnights', () => {
     fc.assert(
       fc.property(

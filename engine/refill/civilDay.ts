@@ -34,7 +34,11 @@ function offsetOfHour(hour: number, timeZone: string): number {
 
 /** The local date of an instant in `timeZone` (days since 1970-01-01); NaN for an unknown zone, as luxon. */
 export function civilDay(ms: number, timeZone: string): number {
-  if (!Number.isSafeInteger(ms)) return civilDayLuxon(ms, timeZone);
+  // Deadlines carry fractions of a millisecond. Date (and so luxon) truncates them, which is the floor used
+  // here for instants after 1970; before 1970 truncation rounds up, so those go to luxon.
+  if (!(Number.isSafeInteger(ms) || (ms >= 0 && ms <= Number.MAX_SAFE_INTEGER))) {
+    return civilDayLuxon(ms, timeZone);
+  }
   const offset = offsetOfHour(Math.floor(ms / HOUR_MS), timeZone);
   if (Number.isNaN(offset)) return civilDayLuxon(ms, timeZone);
   return Math.floor((ms + offset * MINUTE_MS) / DAY_MS);
