@@ -95,6 +95,8 @@ export function tankStatus(
   teamId: string,
   tankId: number,
   now: number,
+  /** At most this many readings of `history` (and `deliveries` from its first): a digest needs a few. */
+  options: { historyLimit?: number } = {},
 ): TankStatus | undefined {
   const tank = store.tanks.byId(teamId, tankId);
   if (!tank) return undefined;
@@ -125,11 +127,17 @@ export function tankStatus(
   const latestRow = store.readings.latest(teamId, tankId);
   // The chart and "change since" need only recent readings; the rate state carries the rest.
   const since = (latestRow?.time ?? now) - HISTORY_WINDOW_MS;
-  const recent = seriesOf(
-    geometry,
-    store.readings.recentSeries(teamId, tankId, since, HISTORY_LIMIT),
-    store.deliveries.forTank(teamId, tankId, { since: since + 1 }),
-  );
+  const recentOf = (limit: number) =>
+    seriesOf(
+      geometry,
+      store.readings.recentSeries(teamId, tankId, since, limit),
+      store.deliveries.forTank(teamId, tankId, { since: since + 1 }),
+    );
+  let recent = recentOf(options.historyLimit ?? HISTORY_LIMIT);
+  // A reading the shape cannot hold would leave a short history fewer readings than asked: read them all.
+  if (recent.skipped > 0 && (options.historyLimit ?? HISTORY_LIMIT) < HISTORY_LIMIT) {
+    recent = recentOf(HISTORY_LIMIT);
+  }
   const safeFillLitres =
     ((tank.settings.safeFillPercent ?? DEFAULT_SAFE_FILL_PERCENT) / 100) * geometry.capacity;
   const threshold = thresholdLitres(tank, geometry);

@@ -67,9 +67,12 @@ export function dueToday(statuses: readonly TankStatus[], now: number, zone: str
   });
 }
 
+/** How many of a tank's newest readings the digest looks at (for the usual interval between readings). */
+export const DIGEST_HISTORY_READINGS = 11;
+
 /** The median gap between the tank's last readings (up to 10 gaps), or undefined with fewer than 3 readings. */
 export function usualInterval(status: TankStatus): number | undefined {
-  const times = status.history.slice(-11).map((h) => h.time);
+  const times = status.history.slice(-DIGEST_HISTORY_READINGS).map((h) => h.time);
   if (times.length < 3) return undefined;
   const gaps = times
     .slice(1)

@@ -3,16 +3,18 @@
  * WAL with `synchronous = FULL`, so outside a transaction each rate-cache write of a first look at a tank is
  * its own commit and sync, and each read takes and drops its own snapshot; one transaction makes the team's
  * 50-odd statuses one commit (or one read snapshot), and every tank is seen as of the same instant.
- * The statuses are exactly those of `tankStatus`, tank by tank.
+ * The statuses are those of `tankStatus`, tank by tank, with the history cut to the newest readings the digest
+ * reads (`history` and the `deliveries` from its first reading are a suffix of the full ones).
  */
 import type { Store } from '../store/open-store.js';
 import { type TankStatus, tankStatus } from '../tank-status.js';
+import { DIGEST_HISTORY_READINGS } from './digest-sections.js';
 
 export function digestStatuses(store: Store, teamId: string, now: number): TankStatus[] {
   return store.transaction(() => {
     const statuses: TankStatus[] = [];
     for (const tank of store.tanks.list(teamId)) {
-      const status = tankStatus(store, teamId, tank.id, now);
+      const status = tankStatus(store, teamId, tank.id, now, { historyLimit: DIGEST_HISTORY_READINGS });
       if (status) statuses.push(status);
     }
     return statuses;
