@@ -83,12 +83,24 @@ export function rateOf(
   const cached = store.rateCache.get(teamId, tank.id);
   // A state from another engine version, or for another shape, is not resumed.
   const cache = cached?.specKey === specKey && isRateEstimatorState(cached.state) ? cached : undefined;
-  const estimator = cache
-    ? restoreRateEstimator(cache.state)
-    : createRateEstimator({ capacity: geometry.capacity, filling });
   const since = cache ? cache.asOfTime : Number.MIN_SAFE_INTEGER;
   const rows = store.readings.series(teamId, tank.id, since);
   const fresh = seriesOf(geometry, rows, store.deliveries.forTank(teamId, tank.id, { since: since + 1 }));
+  if (cache && fresh.readings.length === 0 && fresh.deliveries.length === 0) {
+    // Nothing to feed: the cached state's events are the estimator's (restoring it would only copy them).
+    const { latest, trusted } = cache.points;
+    const skipped = cache.skipped + fresh.skipped;
+    return {
+      events: cache.state.events,
+      latest,
+      trusted: trusted ?? latest,
+      readings: cache.readings,
+      skipped,
+    };
+  }
+  const estimator = cache
+    ? restoreRateEstimator(cache.state)
+    : createRateEstimator({ capacity: geometry.capacity, filling });
   let latest = cache?.points.latest ?? null;
   let trusted = cache?.points.trusted ?? null;
   let d = 0;
