@@ -84,7 +84,10 @@ describe('command handlers', () => {
     await say('T4 30in at 2026-11-02 07:30');
     await say('T4 20in at 2026-11-06 07:30');
     const [answer] = await say('T4?');
-    expect(answer?.facts?.find((f) => f.label === 'Runway')?.value).toMatch(/to the threshold \(100 gal\)/);
+    // By the forecast the tank passed 100 gal early on Nov 9, before this question: the runway says so.
+    expect(answer?.facts?.find((f) => f.label === 'Runway')?.value).toMatch(
+      /^over: at or below the threshold \(100 gal\) now/,
+    );
     expect(answer?.facts?.find((f) => f.label === 'Refill')?.value).not.toMatch(/default threshold/);
   });
 

@@ -26,10 +26,27 @@ export function dateFromNow(time: number, now: number, timeZone: string): string
 /** One reading gives a volume but no rate yet. */
 const hasRate = (s: TankStatus): boolean => s.rate !== undefined && s.readingCount >= 2;
 
-/** "470 gal (83%)". */
+/**
+ * The volume a reply gives as the tank's: the latest reading's, or, while that reading is unconfirmed, the
+ * volume the estimate trusts (the one the runway and refill rest on), with the unconfirmed one beside it.
+ */
+export function shownVolume(
+  s: TankStatus,
+): { volume: number; fraction: number; unconfirmed?: number } | undefined {
+  if (!s.latest) return undefined;
+  if (s.latest.suspect && s.rate) {
+    return { volume: s.rate.volume, fraction: s.rate.volume / s.capacity, unconfirmed: s.latest.volume };
+  }
+  return { volume: s.latest.volume, fraction: s.latest.fraction };
+}
+
+/** "470 gal (83%)"; "470 gal (83%); latest reading 610 gal not confirmed yet". */
 export function volumeText(s: TankStatus): string {
-  if (!s.latest) return 'no reading yet';
-  return `${formatVolume(s.latest.volume, s.volumeUnit)} (${formatPercent(s.latest.fraction)})`;
+  const v = shownVolume(s);
+  if (!v) return 'no reading yet';
+  const text = `${formatVolume(v.volume, s.volumeUnit)} (${formatPercent(v.fraction)})`;
+  if (v.unconfirmed === undefined) return text;
+  return `${text}; latest reading ${formatVolume(v.unconfirmed, s.volumeUnit)} not confirmed yet`;
 }
 
 /** "12.4 gal/day (10.9-13.8), from 5 readings over 7 days"; a filling tank says "rising". */
@@ -47,6 +64,36 @@ function targetWords(s: TankStatus): string {
   return r.target === 'full' ? 'to the safe fill level' : 'to empty';
 }
 
+/** The target is reached already: at the last trusted reading, or since then by the forecast. */
+export function runwayIsOver(s: TankStatus, now: number): boolean {
+  const r = s.runway;
+  if (!r || !hasRate(s) || r.days === null || r.at === null) return false;
+  return r.days <= 0 || r.at <= now;
+}
+
+/** "at or below the threshold (600 L) now"; "empty now by the forecast" when no reading has shown it yet. */
+function overText(s: TankStatus): string {
+  const r = s.runway!;
+  const where =
+    r.target === 'threshold'
+      ? s.filling
+        ? `at or above the pick-up level (${formatVolume(r.targetVolume, s.volumeUnit)})`
+        : `at or below the threshold (${formatVolume(r.targetVolume, s.volumeUnit)})`
+      : r.target === 'full'
+        ? 'at the safe fill level'
+        : 'empty';
+  const reached = s.rate && (s.filling ? s.rate.volume >= r.targetVolume : s.rate.volume <= r.targetVolume);
+  return `over: ${where} now${reached ? '' : ' by the forecast; a reading will confirm it'}`;
+}
+
+/** "order now" / "book a pick-up now": the verdict a headline adds to a runway that is over. */
+export function verdictText(s: TankStatus): string | undefined {
+  const p = s.refill;
+  if (!p || !hasRate(s)) return undefined;
+  const what = p.mode === 'pick-up' ? 'book a pick-up' : 'order';
+  return p.verdict === 'order-now' ? `${what} now` : undefined;
+}
+
 /** "9 days (7-12) to empty, Thu 10 Dec". */
 export function runwayText(s: TankStatus, now: number, timeZone: string): string {
   const r = s.runway;
@@ -54,6 +101,8 @@ export function runwayText(s: TankStatus, now: number, timeZone: string): string
   if (r.days === null || r.at === null) {
     return s.filling ? 'not rising: no pick-up in sight' : 'not falling: no end in sight';
   }
+  // A date in the past must never read as an event to come.
+  if (runwayIsOver(s, now)) return overText(s);
   const duration = formatDuration({
     value: r.days,
     ...(r.low !== null ? { low: r.low } : {}),
@@ -76,10 +125,15 @@ export function refillText(s: TankStatus, now: number, timeZone: string): string
   const basis = p.thresholdIsDefault
     ? ' (default threshold 20%; set your own with `set TANK threshold ...`)'
     : '';
-  if (p.verdict === 'order-now') return `${what} now${amount}${basis}`;
+  // Common practice: the quantity comes from the forecast, so the crew gauges the tank before it is moved.
+  const gauge =
+    p.quantity === null
+      ? ''
+      : `; gauge the tank before ${p.mode === 'pick-up' ? 'the pick-up' : 'filling'}, the quantity is an estimate from the forecast`;
+  if (p.verdict === 'order-now') return `${what} now${amount}${basis}${gauge}`;
   if (p.orderBy === null) return `no ${p.mode === 'pick-up' ? 'pick-up' : 'order'} needed at this rate`;
   const when = dateFromNow(p.orderBy, now, timeZone);
-  if (p.verdict === 'order-by') return `${what} by ${when}${amount}${basis}`;
+  if (p.verdict === 'order-by') return `${what} by ${when}${amount}${basis}${gauge}`;
   return `nothing needed yet; ${what} by ${when}`;
 }
 
@@ -88,7 +142,11 @@ export function statusFacts(s: TankStatus, now: number, timeZone: string): Fact[
   if (s.problem) return [{ label: 'Problem', value: s.problem }];
   const facts: Fact[] = [{ label: 'Volume', value: volumeText(s) }];
   if (s.latest?.level !== undefined)
-    facts.push({ label: 'Level', value: `${formatNumber(s.latest.level)} ${s.lengthUnit}` });
+    facts.push({
+      label: 'Level',
+      // The level is the latest reading's: say so when that reading is not the volume shown.
+      value: `${formatNumber(s.latest.level)} ${s.lengthUnit}${s.latest.suspect && s.rate ? ' (latest reading, not confirmed yet)' : ''}`,
+    });
   facts.push({ label: s.filling ? 'Filling' : 'Use', value: rateText(s) });
   facts.push({ label: 'Runway', value: runwayText(s, now, timeZone) });
   const refill = refillText(s, now, timeZone);

@@ -2,7 +2,15 @@ import { formatDateTime } from '../replies/format.js';
 import { tankStatus } from '../tank-status.js';
 import { defineHandler, privateError } from './handler.js';
 import { resolveTank } from './resolve-tank.js';
-import { levelChart, runwayText, statusCaution, statusFacts, volumeText } from './status-reply.js';
+import {
+  levelChart,
+  runwayIsOver,
+  runwayText,
+  statusCaution,
+  statusFacts,
+  verdictText,
+  volumeText,
+} from './status-reply.js';
 
 /** "T4?": volume, rate with its basis, runway with its range and date, refill suggestion, chart. */
 export const tankQuestionHandler = defineHandler({
@@ -24,11 +32,12 @@ export const tankQuestionHandler = defineHandler({
     const caution = statusCaution(status);
     const isDemo = store.teams.get(request.team)?.demo === true;
     const demo = isDemo ? ' [DEMO DATA]' : '';
+    const verdict = runwayIsOver(status, now) ? verdictText(status) : undefined;
     return [
       {
         kind: 'answer',
         visibility: 'channel',
-        headline: `${tank.value.code}${tank.value.site ? ` (${tank.value.site})` : ''}: ${volumeText(status)}, runway ${runwayText(status, now, timeZone)}${demo}`,
+        headline: `${tank.value.code}${tank.value.site ? ` (${tank.value.site})` : ''}: ${volumeText(status)}, runway ${runwayText(status, now, timeZone)}${verdict ? `; ${verdict}` : ''}${demo}`,
         facts: [
           ...statusFacts(status, now, timeZone),
           { label: 'As of', value: formatDateTime(now, timeZone) },

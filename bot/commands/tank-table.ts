@@ -2,7 +2,7 @@ import { formatAge, formatDuration, formatPercent, formatVolume } from '../repli
 import type { Table } from '../replies/reply.js';
 import type { Store } from '../store/index.js';
 import { type TankStatus, tankStatus } from '../tank-status.js';
-import { dateFromNow } from './status-reply.js';
+import { dateFromNow, runwayIsOver, shownVolume } from './status-reply.js';
 
 /** Every live tank's status, in code order. */
 export function teamStatuses(store: Store, teamId: string, now: number): TankStatus[] {
@@ -16,23 +16,28 @@ export function teamStatuses(store: Store, teamId: string, now: number): TankSta
 export function tankTable(statuses: readonly TankStatus[], now: number, timeZone: string): Table {
   return {
     columns: ['tank', 'site', 'volume', 'full', 'runway', 'refill', 'last reading'],
-    rows: statuses.map((s) => [
-      s.tank.code,
-      s.tank.site ?? '',
-      // A star marks a latest reading the forecast does not trust yet (the question explains it).
-      s.latest ? `${formatVolume(s.latest.volume, s.volumeUnit)}${s.latest.suspect ? '*' : ''}` : '-',
-      s.latest ? formatPercent(s.latest.fraction) : '-',
-      runwayCell(s),
-      refillCell(s, now, timeZone),
-      s.latest ? formatAge(s.latest.time, now) : 'none',
-    ]),
+    rows: statuses.map((s) => {
+      const v = shownVolume(s);
+      return [
+        s.tank.code,
+        s.tank.site ?? '',
+        // A star marks a latest reading the forecast does not trust yet: the volume shown is the trusted one
+        // (the question gives both).
+        v ? `${formatVolume(v.volume, s.volumeUnit)}${v.unconfirmed !== undefined ? '*' : ''}` : '-',
+        v ? formatPercent(v.fraction) : '-',
+        runwayCell(s, now),
+        refillCell(s, now, timeZone),
+        s.latest ? formatAge(s.latest.time, now) : 'none',
+      ];
+    }),
   };
 }
 
-function runwayCell(s: TankStatus): string {
+function runwayCell(s: TankStatus, now: number): string {
   const r = s.runway;
   if (!r || s.readingCount < 2) return '-';
   if (r.days === null) return s.filling ? 'not rising' : 'not falling';
+  if (runwayIsOver(s, now)) return 'over';
   return formatDuration({
     value: r.days,
     ...(r.low !== null ? { low: r.low } : {}),

@@ -1,0 +1,118 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { type Bot, createBot } from '../bot.js';
+import { formatPercent, formatVolume } from '../replies/format.js';
+import { toPlainText } from '../replies/plainText.js';
+import type { Reply } from '../replies/reply.js';
+import { openStore, type Store } from '../store/index.js';
+import { tankStatus } from '../tank-status.js';
+
+const TEAM = 'console:kestrel';
+const DAY = 86_400_000;
+let dir: string;
+let store: Store;
+let bot: Bot;
+let clock: number;
+beforeEach(() => {
+  dir = mkdtempSync(join(tmpdir(), 'tr-status-reply-'));
+  store = openStore(join(dir, 'bot.sqlite'));
+  bot = createBot({ store });
+  clock = Date.parse('2026-11-20T16:00:00Z');
+});
+afterEach(() => {
+  store.close();
+  rmSync(dir, { recursive: true, force: true });
+});
+
+function say(text: string): Promise<Reply[]> {
+  clock += 1000;
+  return bot.handle({ team: TEAM, channel: 'c1', user: 'ann', text, receivedAt: clock });
+}
+const fact = (reply: Reply | undefined, label: string) => reply?.facts?.find((f) => f.label === label)?.value;
+const statusOf = (code: string) => tankStatus(store, TEAM, store.tanks.byCode(TEAM, code)!.id, clock)!;
+
+/** T4 falling about an inch a day for six days, then a reading in the wrong unit kept as typed. */
+async function t4WithUnconfirmedReading(): Promise<void> {
+  await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal');
+  for (const [i, level] of [60, 59, 58, 57.1, 56, 55].entries()) {
+    await say(`T4 ${level}in at 2026-11-${10 + i} 08:00`);
+  }
+  await say('T4 54cm at 2026-11-16 08:00');
+  await say('no');
+}
+
+describe('an unconfirmed latest reading', () => {
+  it('shows the volume the estimate trusts, with the unconfirmed reading beside it, in every figure', async () => {
+    await t4WithUnconfirmedReading();
+    const s = statusOf('T4');
+    expect(s.latest?.suspect).toBeDefined();
+    const trusted = formatVolume(s.rate!.volume, 'gal');
+    const unconfirmed = formatVolume(s.latest!.volume, 'gal');
+    expect(trusted).not.toBe(unconfirmed);
+    const percent = formatPercent(s.rate!.volume / s.capacity);
+
+    const [answer] = await say('T4?');
+    expect(answer?.headline).toMatch(new RegExp(`^T4: ${trusted} \\(${percent}\\)`));
+    expect(fact(answer, 'Volume')).toBe(
+      `${trusted} (${percent}); latest reading ${unconfirmed} not confirmed yet`,
+    );
+    // The unconfirmed volume is never given as the tank's volume.
+    expect(answer?.headline).not.toMatch(new RegExp(`^T4: ${unconfirmed}`));
+
+    const [all] = await say('all');
+    expect(all?.table?.rows[0]?.[2]).toBe(`${trusted}*`);
+    expect(all?.table?.rows[0]?.[3]).toBe(percent);
+  });
+
+  it('a confirmed latest reading is the volume, with no note', async () => {
+    await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal');
+    for (const [i, level] of [60, 59, 58].entries()) await say(`T4 ${level}in at 2026-11-${10 + i} 08:00`);
+    const s = statusOf('T4');
+    const [answer] = await say('T4?');
+    expect(fact(answer, 'Volume')).toBe(
+      `${formatVolume(s.latest!.volume, 'gal')} (${formatPercent(s.latest!.fraction)})`,
+    );
+  });
+});
+
+describe('a runway that is already over', () => {
+  it('says the tank is at its threshold now with the verdict, never a past date as the future', async () => {
+    await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal');
+    await say('set T4 threshold 50%');
+    for (const [i, level] of [40, 36, 32, 28, 24].entries())
+      await say(`T4 ${level}in at 2026-11-${10 + i} 08:00`);
+    const [answer] = await say('T4?');
+    const runway = fact(answer, 'Runway');
+    expect(runway).toMatch(/^over: at or below the threshold \(\d[\d,]* gal\) now/);
+    expect(answer?.headline).toMatch(/runway over: at or below the threshold .* now; order now/);
+    expect(toPlainText(answer!)).not.toMatch(/0 hours/);
+    const [all] = await say('all');
+    expect(all?.table?.rows[0]?.[4]).toBe('over');
+  });
+
+  it('a run-out instant in the past reads as empty now by the forecast', async () => {
+    await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal');
+    for (const [i, level] of [20, 16, 12, 8].entries()) await say(`T4 ${level}in at 2026-11-${10 + i} 08:00`);
+    clock = Date.parse('2026-11-13T08:00:00Z') + 5 * DAY;
+    const [answer] = await say('T4?');
+    const runway = fact(answer, 'Runway') ?? '';
+    expect(runway).toMatch(/^over: empty now by the forecast/);
+    // No date is shown as if it were still ahead.
+    expect(runway).not.toMatch(/\d{1,2} Nov/);
+  });
+});
+
+describe('a refill quantity', () => {
+  it('comes with the note to gauge the tank before filling', async () => {
+    await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal');
+    await say('set T4 threshold 50%');
+    for (const [i, level] of [40, 36, 32, 28, 24].entries())
+      await say(`T4 ${level}in at 2026-11-${10 + i} 08:00`);
+    const [answer] = await say('T4?');
+    const refill = fact(answer, 'Refill') ?? '';
+    expect(refill).toMatch(/about [\d,]+ gal to reach the safe fill level/);
+    expect(refill).toMatch(/gauge the tank before filling/);
+  });
+});
