@@ -95,10 +95,13 @@ export function tankStatus(
   teamId: string,
   tankId: number,
   now: number,
-  /** At most this many readings of `history` (and `deliveries` from its first): a digest needs a few. */
-  options: { historyLimit?: number } = {},
+  /**
+   * `historyLimit`: at most this many readings of `history` (and `deliveries` from its first): a digest needs a
+   * few. `known`: the tank's row and the team's zone when the caller read them in the same transaction.
+   */
+  options: { historyLimit?: number; known?: { tank: Tank; timeZone: string } } = {},
 ): TankStatus | undefined {
-  const tank = store.tanks.byId(teamId, tankId);
+  const tank = options.known?.tank.id === tankId ? options.known.tank : store.tanks.byId(teamId, tankId);
   if (!tank) return undefined;
   const built = geometryOf(tank.spec);
   const filling = tank.settings.filling === true;
@@ -195,7 +198,7 @@ export function tankStatus(
       volume: show(trusted.volume),
     };
     status.runway = runwayFrom(trusted, geometry.capacity, safeFillLitres, threshold, filling, now, show);
-    const timeZone = store.teams.get(teamId)?.timeZone ?? 'UTC';
+    const timeZone = options.known?.timeZone ?? store.teams.get(teamId)?.timeZone ?? 'UTC';
     const plan = refillPlan(tank, trusted, geometry.capacity, filling, Math.max(now, trusted.time), timeZone);
     if (plan.ok) status.refill = { ...plan.value, ...inDisplayUnits(plan.value, show) };
     else status.refillProblem = plan.error;

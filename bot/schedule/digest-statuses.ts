@@ -2,7 +2,8 @@
  * Every live tank's status for a team's digest, read in one SQLite transaction per team. The store runs
  * WAL with `synchronous = FULL`, so outside a transaction each rate-cache write of a first look at a tank is
  * its own commit and sync, and each read takes and drops its own snapshot; one transaction makes the team's
- * 50-odd statuses one commit (or one read snapshot), and every tank is seen as of the same instant.
+ * 50-odd statuses one commit (or one read snapshot), and every tank is seen as of the same instant; the
+ * tank rows and the team's zone, read once in it, are handed to tankStatus rather than read again per tank.
  * The statuses are those of `tankStatus`, tank by tank, with the history cut to the newest readings the digest
  * reads (`history` and the `deliveries` from its first reading are a suffix of the full ones).
  */
@@ -13,8 +14,10 @@ import { DIGEST_HISTORY_READINGS } from './digest-sections.js';
 export function digestStatuses(store: Store, teamId: string, now: number): TankStatus[] {
   return store.transaction(() => {
     const statuses: TankStatus[] = [];
+    const timeZone = store.teams.get(teamId)?.timeZone ?? 'UTC';
     for (const tank of store.tanks.list(teamId)) {
-      const status = tankStatus(store, teamId, tank.id, now, { historyLimit: DIGEST_HISTORY_READINGS });
+      const options = { historyLimit: DIGEST_HISTORY_READINGS, known: { tank, timeZone } };
+      const status = tankStatus(store, teamId, tank.id, now, options);
       if (status) statuses.push(status);
     }
     return statuses;
