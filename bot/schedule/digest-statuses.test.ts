@@ -159,4 +159,30 @@ describe('digestStatuses', () => {
     );
     expect(digestStatuses(store, 'console:unknown-team', NOW)).toEqual([]);
   });
+
+  it('builds rate states while another connection to the store reads, and leaves its data as it was', () => {
+    seedTeam('console:kestrel', 'Europe/Berlin', [
+      {
+        product: 'potable water',
+        threshold: 30,
+        leadTimeDays: 1,
+        businessDays: true,
+        filling: false,
+        readings: Array.from({ length: 8 }, (_, i) => [24, 400 - 15 * i] as [number, number]),
+        deliveries: [[30, 100]],
+        startDaysAgo: 9,
+      },
+    ]);
+    const other = temp.open();
+    const expected = oneByOne('console:kestrel', NOW);
+    store.db.exec('DELETE FROM rate_cache');
+    other.db.exec('BEGIN');
+    const seen = other.readings.newest('console:kestrel', 100).length;
+    const statuses = digestStatuses(store, 'console:kestrel', NOW);
+    // The reader keeps its snapshot; the digest's rate state is stored for the next morning.
+    expect(other.readings.newest('console:kestrel', 100).length).toBe(seen);
+    other.db.exec('COMMIT');
+    expect(statuses).toEqual(cutLike(expected, statuses));
+    expect(other.rateCache.get('console:kestrel', statuses[0]!.tank.id)).toBeDefined();
+  });
 });

@@ -12,14 +12,19 @@ import { type TankStatus, tankStatus } from '../tank-status.js';
 import { DIGEST_HISTORY_READINGS } from './digest-sections.js';
 
 export function digestStatuses(store: Store, teamId: string, now: number): TankStatus[] {
-  return store.transaction(() => {
-    const statuses: TankStatus[] = [];
-    const timeZone = store.teams.get(teamId)?.timeZone ?? 'UTC';
-    for (const tank of store.tanks.list(teamId)) {
-      const options = { historyLimit: DIGEST_HISTORY_READINGS, known: { tank, timeZone } };
-      const status = tankStatus(store, teamId, tank.id, now, options);
-      if (status) statuses.push(status);
-    }
-    return statuses;
-  });
+  // IMMEDIATE: a first look at a tank writes its rate state, and a read transaction that turns into a write
+  // fails at once (SQLITE_BUSY, no wait) if another process wrote since it began; taking the write lock
+  // first waits the store's busy timeout instead, as each separate write did before.
+  return store.db
+    .transaction(() => {
+      const statuses: TankStatus[] = [];
+      const timeZone = store.teams.get(teamId)?.timeZone ?? 'UTC';
+      for (const tank of store.tanks.list(teamId)) {
+        const options = { historyLimit: DIGEST_HISTORY_READINGS, known: { tank, timeZone } };
+        const status = tankStatus(store, teamId, tank.id, now, options);
+        if (status) statuses.push(status);
+      }
+      return statuses;
+    })
+    .immediate();
 }
