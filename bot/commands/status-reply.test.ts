@@ -116,3 +116,25 @@ describe('a refill quantity', () => {
     expect(refill).toMatch(/gauge the tank before filling/);
   });
 });
+
+describe('the chart of a filling (waste) tank', () => {
+  it('marks a pick-up nobody logged, from the readings', async () => {
+    await say('add tank W2 rectangular width=2m length=3m height=1.5m unit=L product="backwash waste"');
+    const levels = [20, 30, 40, 50, 60, 70, 80, 15, 25, 35, 45];
+    for (const [i, level] of levels.entries())
+      await say(`W2 ${level}cm at 2026-11-${String(5 + i).padStart(2, '0')} 08:00`);
+    await say('delivered 3000 L to W2 at 2026-11-16 09:00');
+    const [answer] = await say('W2?');
+    const chart = answer?.chart;
+    expect(chart?.filling).toBe(true);
+    expect(chart?.deliveries).toHaveLength(1);
+    // The drop between the 11th and the 12th was never logged: it still gets its marker.
+    expect(chart?.detected).toHaveLength(1);
+    const detected = chart?.detected?.[0];
+    expect(detected!.time).toBeGreaterThanOrEqual(Date.parse('2026-11-11T00:00:00Z'));
+    expect(detected!.time).toBeLessThanOrEqual(Date.parse('2026-11-12T23:00:00Z'));
+    // 65 cm over 2 m x 3 m is 3,900 L; the estimate is the rise it cut short, about that much.
+    expect(detected!.volume).toBeGreaterThan(3000);
+    expect(detected!.volume).toBeLessThan(5000);
+  });
+});

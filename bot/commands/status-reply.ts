@@ -185,12 +185,29 @@ export function levelChart(s: TankStatus, timeZone: string, demo = false): Level
     history: s.history,
     forecast: forecastOf(s),
     deliveries: s.deliveries,
+    detected: detectedRefills(s),
+    filling: s.filling,
     capacity: s.capacity,
     timeZone,
   };
   if (s.threshold !== undefined) chart.threshold = s.threshold;
   else if (s.refill) chart.threshold = s.refill.thresholdVolume;
   return chart;
+}
+
+/**
+ * Refills the estimator found in the readings that nobody logged (a pick-up on a filling tank, a delivery on
+ * an emptying one), within the chart's history, so every refill on the chart has its marker.
+ */
+function detectedRefills(s: TankStatus): { time: number; volume: number }[] {
+  const from = s.history[0]?.time ?? Number.POSITIVE_INFINITY;
+  const kind = s.filling ? 'pickup' : 'delivery';
+  return (
+    s.events
+      .filter((e) => !e.logged && e.type === kind && e.start >= from)
+      // Somewhere between the two readings around the drop: mark the middle.
+      .map((e) => ({ time: (e.start + e.end) / 2, volume: e.volume }))
+  );
 }
 
 function forecastOf(s: TankStatus): LevelChart['forecast'] {

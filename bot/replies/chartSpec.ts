@@ -1,6 +1,6 @@
 /**
  * The level chart as a vega-lite spec: measured history (solid), forecast (dashed) with its range (shaded),
- * deliveries marked, the reorder threshold and the capacity drawn. Sized and lettered for a phone screen:
+ * deliveries (pick-ups of a filling tank) marked, the reorder threshold (pick-up level) and the capacity drawn. Sized and lettered for a phone screen:
  * big fonts, few ticks, labels on the lines instead of a legend.
  */
 import { DateTime } from 'luxon';
@@ -97,9 +97,18 @@ export function chartRows(chart: LevelChart) {
   const last = history[history.length - 1];
   const first = forecast[0];
   if (last && first && last.t < first.t) forecast.unshift({ t: last.t, v: last.v, lo: last.v, hi: last.v });
-  const deliveries: { t: number; label: string }[] = chart.deliveries
-    .filter((d) => finite(d.time, d.volume))
-    .map((d) => ({ t: t(d.time), label: `+${formatVolume(d.volume, chart.volumeUnit)}` }));
+  // Each marker's label is lines of text (vega draws an array as lines), short enough not to run into the next.
+  const label = (volume: number, logged: boolean): string[] => {
+    const amount = formatVolume(volume, chart.volumeUnit);
+    const what = chart.filling ? ['pick-up', amount] : [`+${amount}`];
+    return logged ? what : [...what, 'not logged'];
+  };
+  const marker = (logged: boolean) => (d: { time: number; volume: number }) =>
+    finite(d.time, d.volume) ? [{ t: t(d.time), label: label(d.volume, logged) }] : [];
+  const deliveries: { t: number; label: string[] }[] = [
+    ...chart.deliveries.flatMap(marker(true)),
+    ...(chart.detected ?? []).flatMap(marker(false)),
+  ].sort((a, b) => a.t - b.t);
   return { history, forecast, deliveries };
 }
 
@@ -134,7 +143,7 @@ function referenceLine(value: number, label: string, color: string, dash: number
 export function thresholdLabel(chart: LevelChart): string | undefined {
   return chart.threshold === undefined || !Number.isFinite(chart.threshold)
     ? undefined
-    : `Reorder ${formatVolume(chart.threshold, chart.volumeUnit)}`;
+    : `${chart.filling ? 'Pick-up level' : 'Reorder'} ${formatVolume(chart.threshold, chart.volumeUnit)}`;
 }
 
 export function capacityLabel(chart: LevelChart): string | undefined {
@@ -150,6 +159,8 @@ function timeFormat(rows: ReturnType<typeof chartRows>): string {
   const span = Math.max(...times) - Math.min(...times);
   return span < 2 * 86_400_000 ? '%-d %b %H:%M' : '%-d %b';
 }
+
+const LABEL_LINE_HEIGHT = 20;
 
 const x = { field: 't', type: 'temporal', scale: { type: 'utc' }, title: null } as const;
 
@@ -194,14 +205,16 @@ export function levelChartSpec(chart: LevelChart): TopLevelSpec {
           mark: {
             type: 'text',
             color: CHART_COLORS.delivery,
-            fontSize: 20,
+            fontSize: 18,
             fontWeight: 'bold',
             align: 'left',
             baseline: 'bottom',
             dx: 6,
             // At the foot of the plot: deliveries sit in the measured part, where the level is high, so the
-            // foot is clear there, and the reference-line labels stay at the top-left.
-            y: CHART_SIZE.height - 8,
+            // foot is clear there, and the reference-line labels stay at the top-left. Lines run downwards
+            // from `y`, so a label of several lines starts higher to end at the same foot.
+            lineHeight: LABEL_LINE_HEIGHT,
+            y: CHART_SIZE.height - 8 - (delivery.label.length - 1) * LABEL_LINE_HEIGHT,
           },
           encoding: { x, text: { field: 'label' } },
         },

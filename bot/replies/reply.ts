@@ -32,6 +32,10 @@ export interface LevelChart {
   history: { time: number; volume: number }[];
   forecast: { time: number; volume: number; low: number; high: number }[];
   deliveries: { time: number; volume: number }[];
+  /** Refills (pick-ups on a filling tank) the readings show but nobody logged: start time, estimated volume. */
+  detected?: { time: number; volume: number }[];
+  /** A filling tank (waste): its refills are pick-ups taken away and its threshold is the pick-up level. */
+  filling?: boolean;
   threshold?: number;
   capacity?: number;
   timeZone: string;
