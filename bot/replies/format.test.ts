@@ -134,6 +134,18 @@ describe('dates in the team zone', () => {
     );
   });
 
+  it('never throws at the very ends of the representable range, in a zone ahead of UTC', () => {
+    // ±8.64e15 ms is the range of an ECMAScript time value (ECMA-262, "Time Values and Time Range").
+    for (const [time, now] of [
+      [8.64e15, 0],
+      [8.64e15 - 36e6, 8.64e15],
+    ] as const) {
+      for (const zone of ['Asia/Kolkata', 'Pacific/Chatham']) {
+        expect(formatWhen(time, now, zone)).not.toMatch(/Invalid|NaN|undefined/);
+      }
+    }
+  });
+
   it('says how old a reading is', () => {
     expect(formatAge(now - 20_000, now)).toBe('just now');
     expect(formatAge(now - 5 * 60_000, now)).toBe('5 min ago');

@@ -156,8 +156,14 @@ export function formatDateTime(time: number, timeZone: string): string {
 export function calendarDaysBetween(now: number, time: number, timeZone: string): number {
   const a = inZone(now, timeZone).dt.startOf('day');
   const b = inZone(time, timeZone).dt.startOf('day');
-  const days = Math.round(b.diff(a, 'days').days);
-  // Only at the very ends of the representable range does a zone shift leave luxon without a date.
+  // Only at the very ends of the representable range does a zone shift leave luxon without a date (its diff
+  // then throws): count 24-hour blocks there.
+  let days = Number.NaN;
+  try {
+    if (a.isValid && b.isValid) days = Math.round(b.diff(a, 'days').days);
+  } catch {
+    // luxon's diff overflows there even between two valid dates; the fallback below answers.
+  }
   return Number.isFinite(days) ? days : Math.round((time - now) / 86_400_000);
 }
 
