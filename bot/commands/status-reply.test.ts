@@ -127,6 +127,10 @@ describe('the chart of a filling (waste) tank', () => {
     const [answer] = await say('W2?');
     const chart = answer?.chart;
     expect(chart?.filling).toBe(true);
+    // The runway names the same line the chart draws.
+    await say('set W2 threshold 80%');
+    const [again] = await say('W2?');
+    expect(fact(again, 'Runway')).toMatch(/to the pick-up level \([\d,]+ L\)/);
     expect(chart?.deliveries).toHaveLength(1);
     // The drop between the 11th and the 12th was never logged: it still gets its marker.
     expect(chart?.detected).toHaveLength(1);

@@ -60,7 +60,11 @@ export function rateText(s: TankStatus): string {
 
 function targetWords(s: TankStatus): string {
   const r = s.runway!;
-  if (r.target === 'threshold') return `to the threshold (${formatVolume(r.targetVolume, s.volumeUnit)})`;
+  if (r.target === 'threshold') {
+    // A filling tank's threshold is where a pick-up is due: the chart calls its line the same.
+    const name = s.filling ? 'pick-up level' : 'threshold';
+    return `to the ${name} (${formatVolume(r.targetVolume, s.volumeUnit)})`;
+  }
   return r.target === 'full' ? 'to the safe fill level' : 'to empty';
 }
 
