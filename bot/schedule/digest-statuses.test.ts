@@ -185,4 +185,31 @@ describe('digestStatuses', () => {
     expect(statuses).toEqual(cutLike(expected, statuses));
     expect(other.rateCache.get('console:kestrel', statuses[0]!.tank.id)).toBeDefined();
   });
+
+  it('still answers from the kept rate states while another process holds the write lock too long', () => {
+    seedTeam('console:kestrel', 'Australia/Sydney', [
+      {
+        product: 'diesel',
+        threshold: 20,
+        leadTimeDays: 3,
+        businessDays: false,
+        filling: false,
+        readings: Array.from({ length: 6 }, (_, i) => [24, 450 - 25 * i] as [number, number]),
+        deliveries: [],
+        startDaysAgo: 7,
+      },
+    ]);
+    const expected = digestStatuses(store, 'console:kestrel', NOW); // builds and keeps the rate state
+    const other = temp.open();
+    store.db.pragma('busy_timeout = 0');
+    other.db.exec('BEGIN IMMEDIATE');
+    try {
+      expect(digestStatuses(store, 'console:kestrel', NOW + 60_000)).toEqual(
+        digestStatuses(other, 'console:kestrel', NOW + 60_000),
+      );
+      expect(expected.length).toBe(1);
+    } finally {
+      other.db.exec('ROLLBACK');
+    }
+  });
 });

@@ -11,20 +11,30 @@ import type { Store } from '../store/open-store.js';
 import { type TankStatus, tankStatus } from '../tank-status.js';
 import { DIGEST_HISTORY_READINGS } from './digest-sections.js';
 
+function statusesOf(store: Store, teamId: string, now: number): TankStatus[] {
+  const statuses: TankStatus[] = [];
+  const timeZone = store.teams.get(teamId)?.timeZone ?? 'UTC';
+  for (const tank of store.tanks.list(teamId)) {
+    const options = { historyLimit: DIGEST_HISTORY_READINGS, known: { tank, timeZone } };
+    const status = tankStatus(store, teamId, tank.id, now, options);
+    if (status) statuses.push(status);
+  }
+  return statuses;
+}
+
+const isBusy = (e: unknown) =>
+  e instanceof Error && 'code' in e && typeof e.code === 'string' && e.code.startsWith('SQLITE_BUSY');
+
 export function digestStatuses(store: Store, teamId: string, now: number): TankStatus[] {
   // IMMEDIATE: a first look at a tank writes its rate state, and a read transaction that turns into a write
   // fails at once (SQLITE_BUSY, no wait) if another process wrote since it began; taking the write lock
   // first waits the store's busy timeout instead, as each separate write did before.
-  return store.db
-    .transaction(() => {
-      const statuses: TankStatus[] = [];
-      const timeZone = store.teams.get(teamId)?.timeZone ?? 'UTC';
-      for (const tank of store.tanks.list(teamId)) {
-        const options = { historyLimit: DIGEST_HISTORY_READINGS, known: { tank, timeZone } };
-        const status = tankStatus(store, teamId, tank.id, now, options);
-        if (status) statuses.push(status);
-      }
-      return statuses;
-    })
-    .immediate();
+  try {
+    return store.db.transaction(() => statusesOf(store, teamId, now)).immediate();
+  } catch (e) {
+    // Another process held the write lock past the timeout: read without the transaction, as before it
+    // (statuses whose rate state is kept need no write; a first look still needs the lock and may throw).
+    if (!isBusy(e)) throw e;
+    return statusesOf(store, teamId, now);
+  }
 }
