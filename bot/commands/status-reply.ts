@@ -1,4 +1,4 @@
-import { cautionFor } from '../replies/cautions.js';
+import { cautionFor, gaugeFirstNote } from '../replies/cautions.js';
 import {
   calendarDaysBetween,
   formatAge,
@@ -130,10 +130,7 @@ export function refillText(s: TankStatus, now: number, timeZone: string): string
     ? ' (default threshold 20%; set your own with `set TANK threshold ...`)'
     : '';
   // Common practice: the quantity comes from the forecast, so the crew gauges the tank before it is moved.
-  const gauge =
-    p.quantity === null
-      ? ''
-      : `; gauge the tank before ${p.mode === 'pick-up' ? 'the pick-up' : 'filling'}, the quantity is an estimate from the forecast`;
+  const gauge = p.quantity === null ? '' : `; ${gaugeFirstNote(p.mode === 'pick-up' ? 'pick-up' : 'order')}`;
   if (p.verdict === 'order-now') return `${what} now${amount}${basis}${gauge}`;
   if (p.orderBy === null) return `no ${p.mode === 'pick-up' ? 'pick-up' : 'order'} needed at this rate`;
   const when = dateFromNow(p.orderBy, now, timeZone);

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { cautionFor, hazardOf } from './cautions.js';
+import { cautionFor, gaugeFirstNote, hazardOf } from './cautions.js';
 
 // The hazard classes and wording are common practice for fuels, LPG and water-treatment chemicals; no
 // regulation is cited because the governing code differs by place.
@@ -73,5 +73,14 @@ describe('cautionFor', () => {
         expect(text).not.toMatch(/\d/);
       }),
     );
+  });
+});
+
+describe('gaugeFirstNote', () => {
+  // Common practice: a forecast quantity is checked against a gauge reading before the product is moved.
+  it('tells the crew to gauge first, for a fill and for a pick-up', () => {
+    expect(gaugeFirstNote('order')).toMatch(/^gauge the tank before filling/);
+    expect(gaugeFirstNote('pick-up')).toMatch(/^gauge the tank before the pick-up/);
+    expect(gaugeFirstNote('order')).toMatch(/estimate/);
   });
 });

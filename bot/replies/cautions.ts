@@ -84,3 +84,11 @@ export function cautionFor(
   parts.push(DEFER);
   return parts.join(' ');
 }
+
+/**
+ * Said beside any refill or pick-up quantity. Common practice: a quantity worked out from the forecast is an
+ * estimate, so the crew gauges the tank before the product is moved (and never fills past the safe level).
+ */
+export function gaugeFirstNote(mode: 'order' | 'pick-up'): string {
+  return `gauge the tank before ${mode === 'pick-up' ? 'the pick-up' : 'filling'}, the quantity is an estimate from the forecast`;
+}
