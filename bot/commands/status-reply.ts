@@ -12,6 +12,7 @@ import {
   formatWhen,
 } from '../replies/format.js';
 import type { Fact, LevelChart } from '../replies/reply.js';
+import { volumeText } from '../shown-volume.js';
 import type { TankStatus } from '../tank-status.js';
 
 const DAY_MS = 86_400_000;
@@ -25,29 +26,6 @@ export function dateFromNow(time: number, now: number, timeZone: string): string
 
 /** One reading gives a volume but no rate yet. */
 const hasRate = (s: TankStatus): boolean => s.rate !== undefined && s.readingCount >= 2;
-
-/**
- * The volume a reply gives as the tank's: the latest reading's, or, while that reading is unconfirmed, the
- * volume the estimate trusts (the one the runway and refill rest on), with the unconfirmed one beside it.
- */
-export function shownVolume(
-  s: TankStatus,
-): { volume: number; fraction: number; unconfirmed?: number } | undefined {
-  if (!s.latest) return undefined;
-  if (s.latest.suspect && s.rate) {
-    return { volume: s.rate.volume, fraction: s.rate.volume / s.capacity, unconfirmed: s.latest.volume };
-  }
-  return { volume: s.latest.volume, fraction: s.latest.fraction };
-}
-
-/** "470 gal (83%)"; "470 gal (83%); latest reading 610 gal not confirmed yet". */
-export function volumeText(s: TankStatus): string {
-  const v = shownVolume(s);
-  if (!v) return 'no reading yet';
-  const text = `${formatVolume(v.volume, s.volumeUnit)} (${formatPercent(v.fraction)})`;
-  if (v.unconfirmed === undefined) return text;
-  return `${text}; latest reading ${formatVolume(v.unconfirmed, s.volumeUnit)} not confirmed yet`;
-}
 
 /** "12.4 gal/day (10.9-13.8), from 5 readings over 7 days"; a filling tank says "rising". */
 export function rateText(s: TankStatus): string {

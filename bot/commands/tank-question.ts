@@ -1,4 +1,5 @@
 import { formatDateTime } from '../replies/format.js';
+import { volumeText } from '../shown-volume.js';
 import { tankStatus } from '../tank-status.js';
 import { defineHandler, privateError } from './handler.js';
 import { resolveTank } from './resolve-tank.js';
@@ -9,7 +10,6 @@ import {
   statusCaution,
   statusFacts,
   verdictText,
-  volumeText,
 } from './status-reply.js';
 
 /** "T4?": volume, rate with its basis, runway with its range and date, refill suggestion, chart. */

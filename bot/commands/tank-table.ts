@@ -1,8 +1,9 @@
 import { formatAge, formatDuration, formatPercent, formatVolume } from '../replies/format.js';
 import type { Table } from '../replies/reply.js';
+import { shownVolume } from '../shown-volume.js';
 import type { Store } from '../store/index.js';
 import { type TankStatus, tankStatus } from '../tank-status.js';
-import { dateFromNow, runwayIsOver, shownVolume } from './status-reply.js';
+import { dateFromNow, runwayIsOver } from './status-reply.js';
 
 /** Every live tank's status, in code order. */
 export function teamStatuses(store: Store, teamId: string, now: number): TankStatus[] {

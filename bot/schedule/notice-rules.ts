@@ -6,9 +6,10 @@
  * What to order today is the digest's job, not a notice's: right after a delivery the rate re-learns and the
  * plan's order-by can swing for a few readings, which would make an "order now" notice chatter.
  */
-import { cautionFor } from '../replies/cautions.js';
-import { formatDuration, formatPercent, formatVolume } from '../replies/format.js';
+import { cautionFor, gaugeFirstNote } from '../replies/cautions.js';
+import { formatDuration, formatVolume } from '../replies/format.js';
 import type { Reply } from '../replies/reply.js';
+import { volumeText } from '../shown-volume.js';
 import type { TankStatus } from '../tank-status.js';
 import { tankLabel } from './digest-sections.js';
 
@@ -33,7 +34,6 @@ function limitVolume(status: TankStatus): number | undefined {
   return status.refill?.thresholdVolume;
 }
 
-/** How far the tank is on the safe side of a rule; NaN when it cannot tell (no reading, no plan). */
 /** How far the tank is on the safe side of a rule, in points of capacity; NaN when it cannot tell. */
 export function marginOf(_rule: NoticeRule, status: TankStatus): number {
   const volume = currentVolume(status);
@@ -52,10 +52,8 @@ export function noticeReply(_rule: NoticeRule, status: TankStatus): Reply {
   const label = tankLabel(status);
   const where = status.tank.site ? ` at ${status.tank.site}` : '';
   const unit = status.volumeUnit;
-  const level = status.latest
-    ? `${formatPercent(status.latest.fraction)} (${formatVolume(status.latest.volume, unit)})`
-    : 'unknown';
-  const facts = [{ label: 'Level', value: level }];
+  // The volume the answers show: the trusted one while the latest reading is unconfirmed.
+  const facts = [{ label: 'Volume', value: volumeText(status) }];
   const r = status.runway;
   if (r?.days !== null && r?.days !== undefined) {
     const range = r.low !== null && r.high !== null ? { low: r.low, high: r.high } : {};
@@ -63,9 +61,11 @@ export function noticeReply(_rule: NoticeRule, status: TankStatus): Reply {
   }
   const plan = status.refill;
   if (plan?.quantity !== null && plan?.quantity !== undefined) {
+    const mode = plan.mode === 'pick-up' ? 'pick-up' : 'order';
     facts.push({
-      label: plan.mode === 'pick-up' ? 'Pick-up' : 'Order',
-      value: formatVolume(plan.quantity, unit),
+      label: mode === 'pick-up' ? 'Pick-up' : 'Order',
+      // Common practice, as in the answers: the quantity is a forecast, so the tank is gauged first.
+      value: `${formatVolume(plan.quantity, unit)}; ${gaugeFirstNote(mode)}`,
     });
   }
   const overfill = status.filling || status.overSafeFill;
