@@ -1,5 +1,6 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { type TempStore, tempStore } from '../../test/schedule/helpers.js';
+import { gaugeFirstNote } from '../replies/cautions.js';
 import { toPlainText } from '../replies/plainText.js';
 import type { Store } from '../store/index.js';
 import { tankStatus } from '../tank-status.js';
@@ -97,9 +98,11 @@ describe('composeDigest from the store', () => {
     expect(reply.headline).toMatch(
       /^Morning digest for Kestrel Valley Water Co-op, Wed 2 Dec: \d+ things need attention\.$/,
     );
+    // The order, then once the note the answers give beside a quantity: gauge the tank before filling.
     expect(facts['Order today']).toMatch(
-      /^Ridge Pump Station, diesel: [\d,]+ gal \(GEN\d [\d,]+ gal, GEN\d [\d,]+ gal\)$/,
+      /^Ridge Pump Station, diesel: [\d,]+ gal \(GEN\d [\d,]+ gal, GEN\d [\d,]+ gal\) \(gauge the tank before filling, /,
     );
+    expect(facts['Order today']!.endsWith(`(${gaugeFirstNote('order')})`)).toBe(true);
     // The quantities are the refill planner's, through tankStatus (computed in one place).
     const plan1 = tankStatus(store, TEAM, gen1, NOW)!.refill!;
     expect(plan1.verdict).toBe('order-now');

@@ -23,7 +23,7 @@ import {
 } from './digest-sections.js';
 import { digestStatuses } from './digest-statuses.js';
 import { postsRepo } from './posts.js';
-import { orderLines } from './site-orders.js';
+import { siteOrders } from './site-orders.js';
 
 /** The plain-text budget: under Discord's 2,000-character message with room for a mention or a link. */
 export const DIGEST_MAX_CHARS = 1_900;
@@ -47,6 +47,8 @@ interface Sections {
   /** The first rows, formatted once and reused while the fit shrinks the table. */
   firstRows: string[][];
   orders: string[];
+  /** Said once beside the orders: gauge before filling, as the answers say beside a quantity. */
+  ordersNote: string | undefined;
   drops: string[];
   problems: string[];
   overdue: string[];
@@ -81,7 +83,10 @@ function build(
   const add = (label: string, lines: string[]) => {
     if (lines.length > 0) facts.push({ label, value: cut(lines, items).join('; ') });
   };
-  add('Order today', s.orders);
+  if (s.orders.length > 0) {
+    const note = s.ordersNote ? ` (${s.ordersNote})` : '';
+    facts.push({ label: 'Order today', value: `${cut(s.orders, items).join('; ')}${note}` });
+  }
   if (s.drops.length > 0) {
     facts.push({
       label: 'Unexplained drops',
@@ -129,10 +134,12 @@ export function composeDigest(input: DigestInput): Reply {
   const endOfDay = endOfLocalDay(input.now, zone);
   const due = dueToday(input.statuses, input.now, zone);
   const sorted = byRunway(input.statuses);
+  const orders = siteOrders(input.statuses, input.now, endOfDay);
   const sections: Sections = {
     table: sorted,
     firstRows: sorted.slice(0, MOST_ROWS).map((status) => runwayRow(status, input.now, zone, endOfDay)),
-    orders: orderLines(input.statuses, input.now, endOfDay),
+    orders: orders.lines,
+    ordersNote: orders.note,
     drops: dropLines(input.statuses, input.since, input.now, zone),
     problems: problemLines(input.statuses),
     overdue: overdueLines(input.statuses, input.now),

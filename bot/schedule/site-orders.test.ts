@@ -1,9 +1,10 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { type TempStore, tempStore } from '../../test/schedule/helpers.js';
+import { gaugeFirstNote } from '../replies/cautions.js';
 import type { Store } from '../store/index.js';
 import { tankStatus } from '../tank-status.js';
 import { endOfLocalDay } from './digest-sections.js';
-import { orderLines, SHARED_DELIVERY_WINDOW_DAYS } from './site-orders.js';
+import { orderLines, SHARED_DELIVERY_WINDOW_DAYS, siteOrders } from './site-orders.js';
 
 // Demo scenario of our own invention: Kestrel Valley Water Co-op (DEMO DATA).
 const DAY = 86_400_000;
@@ -90,5 +91,17 @@ describe('orderLines', () => {
     ]);
     const calm = tankWithUse('W2', 'North Yard', 'potable water', drum, 520, 1);
     expect(orderLines([calm], NOW, endOfLocalDay(NOW, 'America/Chicago'))).toEqual([]);
+  });
+
+  it('says once beside the orders to gauge the tank first, as the answers do; nothing to say with no order', () => {
+    const gen1 = tankWithUse('GEN1', 'Ridge Pump Station', 'diesel', drum, 330, 12);
+    const hypo = tankWithUse('HYPO', 'Mill Creek Lift Station', 'sodium hypochlorite', tote, 420, 18);
+    const endOfDay = endOfLocalDay(NOW, 'America/Chicago');
+    const due = siteOrders([gen1, hypo], NOW, endOfDay);
+    expect(due.lines).toEqual(orderLines([gen1, hypo], NOW, endOfDay));
+    expect(due.lines).toHaveLength(2);
+    expect(due.note).toBe(gaugeFirstNote('order'));
+    const calm = tankWithUse('W2', 'North Yard', 'potable water', drum, 520, 1);
+    expect(siteOrders([calm], NOW, endOfDay)).toEqual({ lines: [], note: undefined });
   });
 });

@@ -9,6 +9,7 @@
 import { consolidateSite, type SitePlan } from '../../engine/refill/index.js';
 import type { RefillPlan } from '../../engine/refill/planRefill.js';
 import { fromLitres, isVolumeUnit, toLitres, type VolumeUnit } from '../../engine/units/index.js';
+import { gaugeFirstNote } from '../replies/cautions.js';
 import { formatVolume } from '../replies/format.js';
 import type { TankStatus } from '../tank-status.js';
 
@@ -37,6 +38,18 @@ function inLitres(plan: RefillPlan, unit: VolumeUnit, now: number): RefillPlan {
  * "North Yard, potable water: W1 200 gal".
  */
 export function orderLines(statuses: readonly TankStatus[], now: number, endOfDay: number): string[] {
+  return siteOrders(statuses, now, endOfDay).lines;
+}
+
+/**
+ * The order lines, and the note that goes once beside them when any gives a quantity: "gauge the tank before
+ * filling, ..." as the answers say it (a pick-up's wording for pick-ups).
+ */
+export function siteOrders(
+  statuses: readonly TankStatus[],
+  now: number,
+  endOfDay: number,
+): { lines: string[]; note: string | undefined } {
   const byId = new Map<string, TankStatus>();
   const plans: SitePlan[] = [];
   for (const s of statuses) {
@@ -52,6 +65,7 @@ export function orderLines(statuses: readonly TankStatus[], now: number, endOfDa
     });
   }
   const lines: { litres: number; text: string }[] = [];
+  const modes = new Set<'order' | 'pick-up'>();
   for (const order of consolidateSite(plans, SHARED_DELIVERY_WINDOW_DAYS)) {
     if (order.verdict !== 'order-now' && order.orderBy > endOfDay) continue;
     const members = order.tanks.map((line) => ({ line, status: byId.get(line.tankId)! }));
@@ -74,6 +88,10 @@ export function orderLines(statuses: readonly TankStatus[], now: number, endOfDa
         ? `${head}: ${each[0]}${below}`
         : `${head}: ${total === null ? 'total unknown' : formatVolume(fromLitres(total, unit), unit)} (${each.join(', ')})${below}`;
     lines.push({ litres: total ?? 0, text });
+    if (order.tanks.some((line) => line.quantity !== null))
+      modes.add(order.mode === 'pick-up' ? 'pick-up' : 'order');
   }
-  return lines.sort((a, b) => b.litres - a.litres || a.text.localeCompare(b.text)).map((l) => l.text);
+  const sorted = lines.sort((a, b) => b.litres - a.litres || a.text.localeCompare(b.text));
+  const notes = (['order', 'pick-up'] as const).filter((m) => modes.has(m)).map((m) => gaugeFirstNote(m));
+  return { lines: sorted.map((l) => l.text), note: notes.length ? notes.join('; ') : undefined };
 }
