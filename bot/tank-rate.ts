@@ -11,6 +11,7 @@ import { isVolumeUnit, toLitres } from '../engine/units/index.js';
 import { readingLitres } from './reading-volume.js';
 import type { Store } from './store/index.js';
 import type { SeriesReading } from './store/readings.js';
+import { storeReads, type TankReads } from './store/team-reads.js';
 import type { Delivery, Tank } from './store/types.js';
 
 /**
@@ -78,14 +79,16 @@ export function rateOf(
   tank: Tank,
   geometry: TankGeometry,
   filling: boolean,
+  /** Where the reads come from: the store one query at a time, or a team's prefetch (the same answers). */
+  reads: TankReads = storeReads(store, teamId),
 ): RateResult {
   const specKey = JSON.stringify([tank.spec, filling]);
-  const cached = store.rateCache.get(teamId, tank.id);
+  const cached = reads.rateCache(tank.id);
   // A state from another engine version, or for another shape, is not resumed.
   const cache = cached?.specKey === specKey && isRateEstimatorState(cached.state) ? cached : undefined;
   const since = cache ? cache.asOfTime : Number.MIN_SAFE_INTEGER;
-  const rows = store.readings.series(teamId, tank.id, since);
-  const fresh = seriesOf(geometry, rows, store.deliveries.forTank(teamId, tank.id, { since: since + 1 }));
+  const rows = reads.series(tank.id, since);
+  const fresh = seriesOf(geometry, rows, reads.deliveries(tank.id, since + 1));
   if (cache && fresh.readings.length === 0 && fresh.deliveries.length === 0) {
     // Nothing to feed: the cached state's events are the estimator's (restoring it would only copy them).
     const { latest, trusted } = cache.points;

@@ -5,6 +5,8 @@ import { planRefill, type RefillPlan } from '../engine/refill/planRefill.js';
 import { fromLitres, fromMetres } from '../engine/units/index.js';
 import { readingLevelMetres } from './reading-volume.js';
 import type { Store } from './store/index.js';
+import type { RateCacheEntry } from './store/rate-cache.js';
+import { storeReads, type TankReads } from './store/team-reads.js';
 import type { Tank } from './store/types.js';
 import { geometryOf, rateOf, seriesOf } from './tank-rate.js';
 
@@ -97,9 +99,10 @@ export function tankStatus(
   now: number,
   /**
    * `historyLimit`: at most this many readings of `history` (and `deliveries` from its first): a digest needs a
-   * few. `known`: the tank's row and the team's zone when the caller read them in the same transaction.
+   * few. `known`: the tank's row and the team's zone when the caller read them in the same transaction, and
+   * optionally the team's reads prefetched in it (`teamReads`), which answer as the store would.
    */
-  options: { historyLimit?: number; known?: { tank: Tank; timeZone: string } } = {},
+  options: { historyLimit?: number; known?: { tank: Tank; timeZone: string; reads?: TankReads } } = {},
 ): TankStatus | undefined {
   const tank = options.known?.tank.id === tankId ? options.known.tank : store.tanks.byId(teamId, tankId);
   if (!tank) return undefined;
@@ -126,16 +129,13 @@ export function tankStatus(
   const geometry = built.value;
   const { length: lengthUnit, volume: volumeUnit } = geometry.spec.units;
   const show = (litres: number) => fromLitres(litres, volumeUnit);
-  const rate = rateOf(store, teamId, tank, geometry, filling);
-  const latestRow = store.readings.latest(teamId, tankId);
+  const reads = options.known?.reads ?? storeReads(store, teamId);
+  const rate = rateOf(store, teamId, tank, geometry, filling, reads);
+  const latestRow = reads.latest(tankId);
   // The chart and "change since" need only recent readings; the rate state carries the rest.
   const since = (latestRow?.time ?? now) - HISTORY_WINDOW_MS;
   const recentOf = (limit: number) =>
-    seriesOf(
-      geometry,
-      store.readings.recentSeries(teamId, tankId, since, limit),
-      store.deliveries.forTank(teamId, tankId, { since: since + 1 }),
-    );
+    seriesOf(geometry, reads.recentSeries(tankId, since, limit), reads.deliveries(tankId, since + 1));
   let recent = recentOf(options.historyLimit ?? HISTORY_LIMIT);
   // A reading the shape cannot hold would leave a short history fewer readings than asked: read them all.
   if (recent.skipped > 0 && (options.historyLimit ?? HISTORY_LIMIT) < HISTORY_LIMIT) {
@@ -263,6 +263,25 @@ function inDisplayUnits(plan: RefillPlan, show: (litres: number) => number): Par
     thresholdVolume: show(plan.thresholdVolume),
     safeFillVolume: plan.safeFillVolume === null ? null : show(plan.safeFillVolume),
   };
+}
+
+/**
+ * The earliest delivery instant a status of these tanks asks for, given their rate-cache entries and newest
+ * readings: what a team's prefetch must cover (a tank with no cache asks for all of its deliveries).
+ */
+export function deliveriesAskedFrom(
+  tankIds: readonly number[],
+  caches: ReadonlyMap<number, RateCacheEntry>,
+  latest: ReadonlyMap<number, { time: number }>,
+  now: number,
+): number {
+  let from = Number.MAX_SAFE_INTEGER;
+  for (const id of tankIds) {
+    const cache = caches.get(id);
+    const recent = (latest.get(id)?.time ?? now) - HISTORY_WINDOW_MS;
+    from = Math.min(from, (cache ? cache.asOfTime : Number.MIN_SAFE_INTEGER) + 1, recent + 1);
+  }
+  return from;
 }
 
 /** How far back the chart's history and the "change since" reach, from the newest reading. */

@@ -135,6 +135,56 @@ describe('digestStatuses', () => {
     );
   });
 
+  it('stays tankStatus with held, deleted and unconvertible readings, and readings after the kept rate state', () => {
+    let n = 0;
+    fc.assert(
+      fc.property(
+        fc.array(tankArb, { maxLength: 4 }),
+        // Readings to hold or soft-delete, by index into the team's readings.
+        fc.array(fc.tuple(fc.nat(), fc.constantFrom('hold', 'delete')), { maxLength: 6 }),
+        // Later level readings [tank index, hours after NOW, inches] (the drum is 72 in: some cannot be held).
+        fc.array(fc.tuple(fc.nat(), fc.integer({ min: 1, max: 47 }), fc.integer({ min: 0, max: 90 })), {
+          maxLength: 5,
+        }),
+        // Later deliveries [tank index, hours after NOW, gallons], some after every reading.
+        fc.array(fc.tuple(fc.nat(), fc.integer({ min: 1, max: 47 }), fc.integer({ min: 1, max: 300 })), {
+          maxLength: 3,
+        }),
+        (tanks, changes, laterReadings, laterDeliveries) => {
+          const team = `console:kestrel-edge-${n++}`;
+          seedTeam(team, 'America/Chicago', tanks);
+          const ids = store.readings.newest(team, 1000).map((r) => r.id);
+          for (const [k, what] of changes) {
+            const id = ids[k % Math.max(1, ids.length)];
+            if (id === undefined) break;
+            if (what === 'hold') store.readings.setStatus(team, id, 'held');
+            else store.readings.softDelete(team, id, NOW);
+          }
+          store.db.exec('DELETE FROM rate_cache');
+          digestStatuses(store, team, NOW); // keeps each tank's rate state as of its newest reading
+          const tankIds = store.tanks.list(team).map((t) => t.id);
+          if (tankIds.length > 0) {
+            for (const [k, hours, inches] of laterReadings) {
+              const reading = { tankId: tankIds[k % tankIds.length]!, time: NOW + hours * HOUR };
+              const raw = { kind: 'level' as const, value: inches, unit: 'in', rawText: `${inches} in` };
+              store.readings.add(team, { ...reading, ...raw, userId: 'u1' }, reading.time);
+            }
+            for (const [k, hours, gal] of laterDeliveries) {
+              const delivery = { tankId: tankIds[k % tankIds.length]!, time: NOW + hours * HOUR };
+              const raw = { volume: gal, unit: 'gal', rawText: `delivered ${gal} gal` };
+              store.deliveries.add(team, { ...delivery, ...raw, userId: 'u1' }, delivery.time);
+            }
+          }
+          const now = NOW + 2 * DAY;
+          const warm = digestStatuses(store, team, now);
+          const expected = oneByOne(team, now);
+          expect(warm).toEqual(cutLike(expected, warm));
+        },
+      ),
+      { numRuns: 30 },
+    );
+  });
+
   it('keeps the rate state it builds (one commit for the team) and nothing else changes in the store', () => {
     seedTeam('console:kestrel', 'America/Chicago', [
       {

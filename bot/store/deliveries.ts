@@ -1,7 +1,7 @@
 import type Database from 'better-sqlite3';
 import type { Delivery, NewDelivery } from './types.js';
 
-interface DeliveryDbRow {
+export interface DeliveryDbRow {
   id: number;
   team_id: string;
   tank_id: number;
@@ -22,7 +22,7 @@ export interface DeliveriesRepo {
   restore(teamId: string, id: number): boolean;
 }
 
-const toDelivery = (r: DeliveryDbRow): Delivery => ({
+export const toDelivery = (r: DeliveryDbRow): Delivery => ({
   id: r.id,
   teamId: r.team_id,
   tankId: r.tank_id,

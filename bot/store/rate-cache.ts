@@ -25,7 +25,7 @@ export interface RateCacheRepo {
   drop(teamId: string, tankId: number): void;
 }
 
-interface RateCacheDbRow {
+export interface RateCacheDbRow {
   as_of_time: number;
   readings: number;
   skipped: number;
@@ -67,6 +67,20 @@ export const RATE_CACHE_SQL = `
     BEGIN DELETE FROM rate_cache WHERE team_id = OLD.team_id AND tank_id = OLD.id; END;
 `;
 
+/** A stored row as an entry; a state that does not parse is no entry (the cache is rebuilt). */
+export function rateCacheEntryOf(row: RateCacheDbRow): RateCacheEntry | undefined {
+  const state = parseJsonColumn<RateEstimatorState | null>(row.state, null);
+  if (!state) return undefined;
+  return {
+    asOfTime: row.as_of_time,
+    readings: row.readings,
+    skipped: row.skipped,
+    specKey: row.spec_key,
+    state,
+    points: parseJsonColumn<RateCacheEntry['points']>(row.points, { latest: null, trusted: null }),
+  };
+}
+
 export function rateCacheRepo(db: Database.Database): RateCacheRepo {
   const get = db.prepare<[string, number], RateCacheDbRow>(
     'SELECT as_of_time, readings, skipped, spec_key, state, points FROM rate_cache WHERE team_id = ? AND tank_id = ?',
@@ -82,17 +96,7 @@ export function rateCacheRepo(db: Database.Database): RateCacheRepo {
   return {
     get: (teamId, tankId) => {
       const row = get.get(teamId, tankId);
-      if (!row) return undefined;
-      const state = parseJsonColumn<RateEstimatorState | null>(row.state, null);
-      if (!state) return undefined;
-      return {
-        asOfTime: row.as_of_time,
-        readings: row.readings,
-        skipped: row.skipped,
-        specKey: row.spec_key,
-        state,
-        points: parseJsonColumn<RateCacheEntry['points']>(row.points, { latest: null, trusted: null }),
-      };
+      return row ? rateCacheEntryOf(row) : undefined;
     },
     put: (teamId, tankId, e) => {
       put.run(

@@ -1,7 +1,7 @@
 import type Database from 'better-sqlite3';
 import type { NewReading, Reading, ReadingKind, ReadingStatus } from './types.js';
 
-interface ReadingDbRow {
+export interface ReadingDbRow {
   id: number;
   team_id: string;
   tank_id: number;
@@ -38,7 +38,7 @@ export interface ReadingsRepo {
   restore(teamId: string, id: number): boolean;
 }
 
-const toReading = (r: ReadingDbRow): Reading => ({
+export const toReading = (r: ReadingDbRow): Reading => ({
   id: r.id,
   teamId: r.team_id,
   tankId: r.tank_id,
