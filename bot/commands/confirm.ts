@@ -4,6 +4,7 @@ import { geometryOf } from '../tank-rate.js';
 import { tankStatus } from '../tank-status.js';
 import { defineHandler, privateError } from './handler.js';
 import { readingConfirmation } from './reading.js';
+import { changeReadingUnit, softDeleteReading } from './reading-edits.js';
 
 /** yes / no to the "did you mean ...?" about a reading kept aside. */
 export const confirmHandler = defineHandler({
@@ -20,12 +21,7 @@ export const confirmHandler = defineHandler({
     const suggested = typeof pending?.state.unit === 'string' ? pending.state.unit : undefined;
 
     if (!command.answer && !suggested) {
-      store.readings.softDelete(request.team, reading.id, now);
-      store.audit.record(
-        request.team,
-        { userId: request.user, action: 'reading.drop', target: 'readings', targetId: reading.id },
-        now,
-      );
+      softDeleteReading(store, request, reading.id, 'reading.drop', now);
       return [
         {
           kind: 'confirmation',
@@ -42,18 +38,8 @@ export const confirmHandler = defineHandler({
         return [
           privateError(`${reading.value} ${suggested} does not fit ${tank.code}; send the reading again.`),
         ];
-      store.readings.correctUnit(request.team, reading.id, reading.kind, suggested);
-      store.audit.record(
-        request.team,
-        {
-          userId: request.user,
-          action: 'reading.unit',
-          target: 'readings',
-          targetId: reading.id,
-          detail: { from: reading.unit, to: suggested },
-        },
-        now,
-      );
+      const to = { kind: reading.kind, unit: suggested };
+      changeReadingUnit(store, request, reading.id, to, { from: reading.unit, to: suggested }, now);
       confirmed = { ...reading, unit: suggested };
     }
     store.readings.setStatus(request.team, reading.id, 'ok');

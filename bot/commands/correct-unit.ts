@@ -4,6 +4,7 @@ import { geometryOf } from '../tank-rate.js';
 import { tankStatus } from '../tank-status.js';
 import { defineHandler, privateError } from './handler.js';
 import { readingConfirmation } from './reading.js';
+import { changeReadingUnit } from './reading-edits.js';
 
 /** "that was cm": the sender's last reading keeps its number and takes this unit. */
 export const correctUnitHandler = defineHandler({
@@ -33,20 +34,10 @@ export const correctUnitHandler = defineHandler({
     const unit = u.kind === 'percent' ? '%' : u.unit;
     const litres = readingLitres(geometry.value, { kind, value: reading.value, unit });
     if (!litres.ok) return [privateError(`${tank.code}: ${litres.error}`)];
-    store.readings.correctUnit(request.team, reading.id, kind, unit);
+    const from = { kind: reading.kind, unit: reading.unit };
+    changeReadingUnit(store, request, reading.id, { kind, unit }, { from, to: { kind, unit } }, now);
     store.readings.setStatus(request.team, reading.id, 'ok');
     store.pending.clear(request.team, request.channel, request.user);
-    store.audit.record(
-      request.team,
-      {
-        userId: request.user,
-        action: 'reading.unit',
-        target: 'readings',
-        targetId: reading.id,
-        detail: { from: { kind: reading.kind, unit: reading.unit }, to: { kind, unit } },
-      },
-      now,
-    );
     const status = tankStatus(store, request.team, tank.id, now)!;
     return [readingConfirmation(status, { ...reading, kind, unit }, now, timeZone)];
   },

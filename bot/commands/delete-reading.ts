@@ -1,6 +1,7 @@
 import { DateTime } from 'luxon';
 import { formatDateTime } from '../replies/format.js';
 import { defineHandler, privateError } from './handler.js';
+import { softDeleteReading } from './reading-edits.js';
 import { resolveTank } from './resolve-tank.js';
 
 /** How far back "delete the 7:30 reading" looks: the newest readings only, not all history. */
@@ -29,12 +30,7 @@ export const deleteReadingHandler = defineHandler({
         ),
       ];
     }
-    store.readings.softDelete(request.team, match.id, now);
-    store.audit.record(
-      request.team,
-      { userId: request.user, action: 'reading.delete', target: 'readings', targetId: match.id },
-      now,
-    );
+    softDeleteReading(store, request, match.id, 'reading.delete', now);
     return [
       {
         kind: 'confirmation',
