@@ -10,6 +10,7 @@ import {
   InteractionContextType,
   type RESTPutAPIApplicationCommandsJSONBody,
 } from 'discord.js';
+import { helpTopicSchema } from '../../bot/language/command.js';
 
 /** Subcommand names, in the order people see them. */
 export const SUBCOMMANDS = [
@@ -25,17 +26,8 @@ export const SUBCOMMANDS = [
 ] as const;
 export type Subcommand = (typeof SUBCOMMANDS)[number];
 
-/** Help topics the bot knows (bot/language helpTopicSchema). */
-export const HELP_TOPICS = [
-  'readings',
-  'deliveries',
-  'questions',
-  'setup',
-  'settings',
-  'corrections',
-  'units',
-  'times',
-];
+/** Help topics the bot knows: the language's own list, so a new topic shows up here too. */
+export const HELP_TOPICS: readonly string[] = helpTopicSchema.options;
 
 /** Windows offered for "which tanks run low ...?"; each is a phrase the language reads. */
 export const LOW_WINDOWS = ['today', 'tomorrow', 'this week', 'next week', 'in 14 days'];
