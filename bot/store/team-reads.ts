@@ -7,7 +7,7 @@ import type { Delivery, Reading } from './types.js';
 
 /**
  * The per-tank reads of a tank's status. `storeReads` asks the store one query at a time; `teamReads` reads a
- * whole team in a few set-based queries first and answers from them, so a digest of 50 tanks runs four
+ * whole team in five set-based queries first and answers from them, so a digest of 50 tanks runs five
  * queries rather than 250. Each answer is the one the store would give in the same transaction: where the
  * prefetch does not cover a question (another `since`, a longer limit), it asks the store.
  */
@@ -49,14 +49,23 @@ function statementsOf(db: Database.Database) {
             AND r.time > c.as_of_time
        WHERE c.team_id = ? ORDER BY r.tank_id, r.time, r.id`,
     ),
-    // The newest `limit` live confirmed readings of every live tank, newest first: a bounded index walk per
-    // tank (a window function over all rows would read a dense sensor's whole history).
-    newest: db.prepare<[number, string], ReadingDbRow>(
-      `SELECT r.* FROM tanks t JOIN readings r ON r.id IN (
+    // The newest `limit` live confirmed readings of every tank of the team (a removed one too, as the store
+    // answers for it), newest first: a bounded index walk per
+    // tank (a window function over all rows would read a dense sensor's whole history, and was slower here).
+    newest: db.prepare<[number, string], SeriesRow>(
+      `SELECT r.tank_id, r.id, r.time, r.kind, r.value, r.unit FROM tanks t JOIN readings r ON r.id IN (
          SELECT id FROM readings INDEXED BY readings_series
          WHERE team_id = t.team_id AND tank_id = t.id AND deleted_at IS NULL AND status = 'ok'
          ORDER BY time DESC, id DESC LIMIT ?)
-       WHERE t.team_id = ? AND t.deleted_at IS NULL ORDER BY r.tank_id, r.time DESC, r.id DESC`,
+       WHERE t.team_id = ? ORDER BY r.tank_id, r.time DESC, r.id DESC`,
+    ),
+    // The newest one whole (its raw text is shown), as `readings.latest`.
+    latest: db.prepare<[string], ReadingDbRow>(
+      `SELECT r.* FROM tanks t JOIN readings r ON r.id = (
+         SELECT id FROM readings INDEXED BY readings_series
+         WHERE team_id = t.team_id AND tank_id = t.id AND deleted_at IS NULL AND status = 'ok'
+         ORDER BY time DESC, id DESC LIMIT 1)
+       WHERE t.team_id = ?`,
     ),
     deliveries: db.prepare<[string, number], DeliveryDbRow>(
       `SELECT * FROM deliveries WHERE team_id = ? AND deleted_at IS NULL AND time >= ?
@@ -111,12 +120,9 @@ export function teamReads(
     if (entry) caches.set(row.tank_id, entry);
   }
   const sinceCache = groupBy(s.sinceCache.all(teamId));
-  const newest = new Map<number, Reading[]>();
-  for (const [tankId, rows] of groupBy(s.newest.all(newestLimit, teamId))) {
-    newest.set(tankId, rows.map(toReading));
-  }
+  const newest = groupBy(s.newest.all(newestLimit, teamId));
   const latest = new Map<number, Reading>();
-  for (const [tankId, rows] of newest) latest.set(tankId, rows[0]!);
+  for (const row of s.latest.all(teamId)) latest.set(row.tank_id, toReading(row));
   const from = deliveriesFrom(caches, latest);
   const deliveries = groupBy(s.deliveries.all(teamId, from));
 
