@@ -34,6 +34,16 @@ export function storeReads(store: Store, teamId: string): TankReads {
 }
 
 type SeriesRow = SeriesReading & { tank_id: number };
+type SeriesTuple = [number, number, number, SeriesReading['kind'], number, string];
+
+const seriesRowOf = ([tank_id, id, time, kind, value, unit]: SeriesTuple): SeriesRow => ({
+  tank_id,
+  id,
+  time,
+  kind,
+  value,
+  unit,
+});
 
 function statementsOf(db: Database.Database) {
   return {
@@ -41,10 +51,11 @@ function statementsOf(db: Database.Database) {
       'SELECT tank_id, as_of_time, readings, skipped, spec_key, state, points FROM rate_cache WHERE team_id = ?',
     ),
     // Readings after each tank's cached state: what the rate estimator still has to be fed (the WHERE is
-    // the partial index readings_series's, so the index alone answers it).
+    // the partial index readings_series's, so the index alone answers it). CROSS JOIN keeps the cache rows
+    // outside: SQLite otherwise walked all of the team's readings (five times slower at 30 a tank).
     sinceCache: db.prepare<[string], SeriesRow>(
       `SELECT r.tank_id, r.id, r.time, r.kind, r.value, r.unit
-       FROM rate_cache c JOIN readings r INDEXED BY readings_series
+       FROM rate_cache c CROSS JOIN readings r INDEXED BY readings_series
          ON r.team_id = c.team_id AND r.tank_id = c.tank_id AND r.deleted_at IS NULL AND r.status = 'ok'
             AND r.time > c.as_of_time
        WHERE c.team_id = ? ORDER BY r.tank_id, r.time, r.id`,
@@ -52,13 +63,16 @@ function statementsOf(db: Database.Database) {
     // The newest `limit` live confirmed readings of every tank of the team (a removed one too, as the store
     // answers for it), newest first: a bounded index walk per
     // tank (a window function over all rows would read a dense sensor's whole history, and was slower here).
-    newest: db.prepare<[number, string], SeriesRow>(
-      `SELECT r.tank_id, r.id, r.time, r.kind, r.value, r.unit FROM tanks t JOIN readings r ON r.id IN (
+    // Rows as arrays (`raw`): a third faster than objects at 550 a team; seriesRowOf names them.
+    newest: db
+      .prepare<[number, string], SeriesTuple>(
+        `SELECT r.tank_id, r.id, r.time, r.kind, r.value, r.unit FROM tanks t JOIN readings r ON r.id IN (
          SELECT id FROM readings INDEXED BY readings_series
          WHERE team_id = t.team_id AND tank_id = t.id AND deleted_at IS NULL AND status = 'ok'
          ORDER BY time DESC, id DESC LIMIT ?)
        WHERE t.team_id = ? ORDER BY r.tank_id, r.time DESC, r.id DESC`,
-    ),
+      )
+      .raw(true),
     // The newest one whole (its raw text is shown), as `readings.latest`.
     latest: db.prepare<[string], ReadingDbRow>(
       `SELECT r.* FROM tanks t JOIN readings r ON r.id = (
@@ -120,7 +134,7 @@ export function teamReads(
     if (entry) caches.set(row.tank_id, entry);
   }
   const sinceCache = groupBy(s.sinceCache.all(teamId));
-  const newest = groupBy(s.newest.all(newestLimit, teamId));
+  const newest = groupBy(s.newest.all(newestLimit, teamId).map(seriesRowOf));
   const latest = new Map<number, Reading>();
   for (const row of s.latest.all(teamId)) latest.set(row.tank_id, toReading(row));
   const from = deliveriesFrom(caches, latest);
