@@ -6,7 +6,6 @@ import {
   formatDateTime,
   formatDuration,
   formatNumber,
-  formatPercent,
   formatRate,
   formatVolume,
   formatWhen,
