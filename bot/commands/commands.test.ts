@@ -1,31 +1,9 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { type Bot, createBot } from '../bot.js';
-import type { Reply } from '../replies/reply.js';
-import { openStore, type Store } from '../store/index.js';
+import { describe, expect, it } from 'vitest';
+import { useBotSession } from '../../test/support/bot-session.js';
 
 const TEAM = 'discord:81384788765712384';
-let dir: string;
-let store: Store;
-let bot: Bot;
-let clock: number;
-beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'tr-commands-'));
-  store = openStore(join(dir, 'bot.sqlite'));
-  bot = createBot({ store });
-  clock = Date.parse('2026-11-09T16:00:00Z');
-});
-afterEach(() => {
-  store.close();
-  rmSync(dir, { recursive: true, force: true });
-});
-
-function say(text: string, user = 'ann'): Promise<Reply[]> {
-  clock += 60_000;
-  return bot.handle({ team: TEAM, channel: 'ops', user, text, receivedAt: clock });
-}
+const session = useBotSession({ team: TEAM, start: '2026-11-09T16:00:00Z', channel: 'ops', stepMs: 60_000 });
+const { say } = session;
 const tankT4 = () => say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal product=diesel');
 
 describe('command handlers', () => {
@@ -42,7 +20,7 @@ describe('command handlers', () => {
     await say('T4 58in at 2026-11-03 07:45');
     const [deleted] = await say('delete the 7:30 reading');
     expect(deleted?.headline).toMatch(/Deleted the reading "T4 60in at 2026-11-02 07:30"/);
-    const rows = store.readings.forTank(TEAM, store.tanks.byCode(TEAM, 'T4')!.id);
+    const rows = session.store.readings.forTank(TEAM, session.store.tanks.byCode(TEAM, 'T4')!.id);
     expect(rows.map((r) => r.value)).toEqual([58]);
     expect((await say('delete the 6:15 reading'))[0]?.kind).toBe('error');
   });
@@ -54,8 +32,8 @@ describe('command handlers', () => {
     expect((await say('GEN-1?'))[0]?.kind).toBe('answer');
     expect((await say('T4?'))[0]?.kind).toBe('error');
     expect((await say('remove tank GEN-1'))[0]?.headline).toMatch(/^Removed GEN-1/);
-    expect(store.tanks.list(TEAM)).toEqual([]);
-    expect((store.db.prepare('SELECT COUNT(*) AS n FROM readings').get() as { n: number }).n).toBe(1);
+    expect(session.store.tanks.list(TEAM)).toEqual([]);
+    expect((session.store.db.prepare('SELECT COUNT(*) AS n FROM readings').get() as { n: number }).n).toBe(1);
   });
 
   it('keeps team settings: zone (checked) and digest', async () => {
@@ -63,13 +41,13 @@ describe('command handlers', () => {
     expect((await say('set time zone Mars/Olympus'))[0]?.kind).toBe('error');
     await say('set time zone Europe/Paris');
     await say('set digest 07:00 weekdays here');
-    expect(store.teams.get(TEAM)).toMatchObject({
+    expect(session.store.teams.get(TEAM)).toMatchObject({
       timeZone: 'Europe/Paris',
       digestTime: '07:00',
       digestDays: [1, 2, 3, 4, 5],
       digestChannel: 'ops',
     });
-    const audit = store.audit.recent(TEAM, 5).map((a) => a.action);
+    const audit = session.store.audit.recent(TEAM, 5).map((a) => a.action);
     expect(audit).toContain('settings.team');
   });
 
@@ -77,7 +55,7 @@ describe('command handlers', () => {
     await tankT4();
     await say('set T4 threshold 100 gal');
     await say('set T4 lead time 3 business days');
-    const tank = store.tanks.byCode(TEAM, 'T4')!;
+    const tank = session.store.tanks.byCode(TEAM, 'T4')!;
     // 100 US gal = 378.5411784 L (NIST Handbook 44, appendix C: 1 gal = 231 in^3 exactly).
     expect(tank.settings).toMatchObject({ leadTimeDays: 3, businessDays: true });
     expect((tank.settings.threshold as { volume: number }).volume).toBeCloseTo(378.5411784, 9);
@@ -105,8 +83,8 @@ describe('command handlers', () => {
   it('cancels a pending exchange, and says so when there is none', async () => {
     await say('add tank T9 strapping unit=L');
     expect((await say('cancel'))[0]?.headline).toMatch(/^Cancelled/);
-    expect(store.pending.get(TEAM, 'ops', 'ann')).toBeUndefined();
-    expect(store.tanks.list(TEAM)).toEqual([]);
+    expect(session.store.pending.get(TEAM, 'ops', 'ann')).toBeUndefined();
+    expect(session.store.tanks.list(TEAM)).toEqual([]);
   });
 
   it('composes the digest on demand', async () => {

@@ -1,37 +1,14 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { type Bot, createBot } from '../bot.js';
+import { describe, expect, it } from 'vitest';
+import { factOf, useBotSession } from '../../test/support/bot-session.js';
 import { formatPercent, formatVolume } from '../replies/format.js';
 import { toPlainText } from '../replies/plainText.js';
-import type { Reply } from '../replies/reply.js';
-import { openStore, type Store } from '../store/index.js';
-import { tankStatus } from '../tank-status.js';
 
 const TEAM = 'console:kestrel';
 const DAY = 86_400_000;
-let dir: string;
-let store: Store;
-let bot: Bot;
-let clock: number;
-beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'tr-status-reply-'));
-  store = openStore(join(dir, 'bot.sqlite'));
-  bot = createBot({ store });
-  clock = Date.parse('2026-11-20T16:00:00Z');
-});
-afterEach(() => {
-  store.close();
-  rmSync(dir, { recursive: true, force: true });
-});
-
-function say(text: string): Promise<Reply[]> {
-  clock += 1000;
-  return bot.handle({ team: TEAM, channel: 'c1', user: 'ann', text, receivedAt: clock });
-}
-const fact = (reply: Reply | undefined, label: string) => reply?.facts?.find((f) => f.label === label)?.value;
-const statusOf = (code: string) => tankStatus(store, TEAM, store.tanks.byCode(TEAM, code)!.id, clock)!;
+const session = useBotSession({ team: TEAM, start: '2026-11-20T16:00:00Z' });
+const { say } = session;
+const fact = factOf;
+const statusOf = (code: string) => session.statusOf(code);
 
 /** T4 falling about an inch a day for six days, then a reading in the wrong unit kept as typed. */
 async function t4WithUnconfirmedReading(): Promise<void> {
@@ -95,7 +72,7 @@ describe('a runway that is already over', () => {
   it('a run-out instant in the past reads as empty now by the forecast', async () => {
     await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal');
     for (const [i, level] of [20, 16, 12, 8].entries()) await say(`T4 ${level}in at 2026-11-${10 + i} 08:00`);
-    clock = Date.parse('2026-11-13T08:00:00Z') + 5 * DAY;
+    session.clock = Date.parse('2026-11-13T08:00:00Z') + 5 * DAY;
     const [answer] = await say('T4?');
     const runway = fact(answer, 'Runway') ?? '';
     expect(runway).toMatch(/^over: empty now by the forecast/);

@@ -1,38 +1,15 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { type Bot, createBot } from '../bot.js';
+import { describe, expect, it } from 'vitest';
+import { factOf, useBotSession } from '../../test/support/bot-session.js';
 import { gaugeFirstNote } from '../replies/cautions.js';
 import { formatPercent, formatVolume } from '../replies/format.js';
-import type { Reply } from '../replies/reply.js';
-import { openStore, type Store } from '../store/index.js';
-import { tankStatus } from '../tank-status.js';
 import { noticeReply } from './notice-rules.js';
 
 // Demo scenario of our own invention (Kestrel Valley Water Co-op).
 const TEAM = 'console:kestrel';
-let dir: string;
-let store: Store;
-let bot: Bot;
-let clock: number;
-beforeEach(() => {
-  dir = mkdtempSync(join(tmpdir(), 'tr-notice-rules-'));
-  store = openStore(join(dir, 'bot.sqlite'));
-  bot = createBot({ store });
-  clock = Date.parse('2026-11-20T16:00:00Z');
-});
-afterEach(() => {
-  store.close();
-  rmSync(dir, { recursive: true, force: true });
-});
-
-function say(text: string): Promise<Reply[]> {
-  clock += 1000;
-  return bot.handle({ team: TEAM, channel: 'c1', user: 'ann', text, receivedAt: clock });
-}
-const fact = (reply: Reply | undefined, label: string) => reply?.facts?.find((f) => f.label === label)?.value;
-const statusOf = (code: string) => tankStatus(store, TEAM, store.tanks.byCode(TEAM, code)!.id, clock)!;
+const session = useBotSession({ team: TEAM, start: '2026-11-20T16:00:00Z' });
+const { say } = session;
+const fact = factOf;
+const statusOf = (code: string) => session.statusOf(code);
 
 async function addT4(levels: readonly number[]): Promise<void> {
   await say('add tank T4 vertical-cylinder diameter=48in length=72in unit=gal product=diesel');
