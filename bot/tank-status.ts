@@ -1,7 +1,7 @@
 import { runwayTo } from '../engine/forecast/runway.js';
 import type { Tank as TankGeometry } from '../engine/geometry/index.js';
 import type { RatePoint, TankEventType } from '../engine/rate/index.js';
-import { planRefill, type RefillPlan } from '../engine/refill/planRefill.js';
+import { mapPlanVolumes, planRefill, type RefillPlan } from '../engine/refill/planRefill.js';
 import { fromLitres, fromMetres } from '../engine/units/index.js';
 import { readingLevelMetres } from './reading-volume.js';
 import type { Store } from './store/index.js';
@@ -200,7 +200,7 @@ export function tankStatus(
     status.runway = runwayFrom(trusted, geometry.capacity, safeFillLitres, threshold, filling, now, show);
     const timeZone = options.known?.timeZone ?? store.teams.get(teamId)?.timeZone ?? 'UTC';
     const plan = refillPlan(tank, trusted, geometry.capacity, filling, Math.max(now, trusted.time), timeZone);
-    if (plan.ok) status.refill = { ...plan.value, ...inDisplayUnits(plan.value, show) };
+    if (plan.ok) status.refill = mapPlanVolumes(plan.value, show);
     else status.refillProblem = plan.error;
   }
   return status;
@@ -252,17 +252,6 @@ function refillPlan(
   return plan.ok
     ? { ok: true as const, value: { ...plan.value, thresholdIsDefault: !settings.threshold } }
     : plan;
-}
-
-function inDisplayUnits(plan: RefillPlan, show: (litres: number) => number): Partial<RefillPlan> {
-  return {
-    quantity: plan.quantity === null ? null : show(plan.quantity),
-    expectedVolumeOnArrival: show(plan.expectedVolumeOnArrival),
-    reorderPoint: show(plan.reorderPoint),
-    safetyStock: show(plan.safetyStock),
-    thresholdVolume: show(plan.thresholdVolume),
-    safeFillVolume: plan.safeFillVolume === null ? null : show(plan.safeFillVolume),
-  };
 }
 
 /**

@@ -7,7 +7,7 @@
  * put back in litres before consolidation and the result is shown in each tank's own unit.
  */
 import { consolidateSite, type SitePlan } from '../../engine/refill/index.js';
-import type { RefillPlan } from '../../engine/refill/planRefill.js';
+import { mapPlanVolumes, type RefillPlan } from '../../engine/refill/planRefill.js';
 import { fromLitres, isVolumeUnit, toLitres, type VolumeUnit } from '../../engine/units/index.js';
 import { gaugeFirstNote } from '../replies/cautions.js';
 import { formatVolume } from '../replies/format.js';
@@ -17,18 +17,11 @@ import type { TankStatus } from '../tank-status.js';
 export const SHARED_DELIVERY_WINDOW_DAYS = 3;
 
 function inLitres(plan: RefillPlan, unit: VolumeUnit, now: number): RefillPlan {
-  const l = (v: number) => toLitres(v, unit);
   return {
-    ...plan,
+    ...mapPlanVolumes(plan, (v) => toLitres(v, unit)),
     // An order already overdue is placed now: grouping by a past order-by would split tanks that all go
     // on today's delivery.
     orderBy: plan.orderBy === null ? null : Math.max(plan.orderBy, now),
-    quantity: plan.quantity === null ? null : l(plan.quantity),
-    expectedVolumeOnArrival: l(plan.expectedVolumeOnArrival),
-    reorderPoint: l(plan.reorderPoint),
-    safetyStock: l(plan.safetyStock),
-    thresholdVolume: l(plan.thresholdVolume),
-    safeFillVolume: plan.safeFillVolume === null ? null : l(plan.safeFillVolume),
   };
 }
 

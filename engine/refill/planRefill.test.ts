@@ -1,6 +1,6 @@
 import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
-import { planRefill, type RefillInput, type RefillPlan } from './planRefill.js';
+import { mapPlanVolumes, planRefill, type RefillInput, type RefillPlan } from './planRefill.js';
 
 const zone = 'America/Chicago';
 const at = (iso: string) => DateTime.fromISO(iso, { zone }).toMillis();
@@ -196,5 +196,17 @@ describe('planRefill', () => {
     const p = plan({ ...ridge, volume: -0.4 });
     expect(p.verdict).toBe('order-now');
     expect(p.expectedVolumeOnArrival).toBe(0);
+  });
+});
+
+describe('mapPlanVolumes', () => {
+  it('converts every volume and nothing else, and converting back gives the plan again', () => {
+    const p = plan(ridge);
+    const doubled = mapPlanVolumes(p, (v) => v * 2);
+    expect(doubled.expectedVolumeOnArrival).toBe(p.expectedVolumeOnArrival * 2);
+    expect(doubled.thresholdVolume).toBe(p.thresholdVolume * 2);
+    expect(doubled.orderBy).toBe(p.orderBy);
+    expect(doubled.sizing).toEqual(p.sizing);
+    expect(mapPlanVolumes(doubled, (v) => v / 2)).toEqual(p);
   });
 });

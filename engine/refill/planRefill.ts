@@ -207,3 +207,19 @@ function clamp(x: number, low: number, high: number | undefined): number {
 }
 
 const round = (x: number) => Math.round(x * 10) / 10;
+
+/**
+ * The plan with every volume passed through `convert` (litres to a display unit, or back); dates, the verdict
+ * and `sizing` (kept in litres for site consolidation) are left as they are.
+ */
+export function mapPlanVolumes<P extends RefillPlan>(plan: P, convert: (volume: number) => number): P {
+  return {
+    ...plan,
+    quantity: plan.quantity === null ? null : convert(plan.quantity),
+    expectedVolumeOnArrival: convert(plan.expectedVolumeOnArrival),
+    reorderPoint: convert(plan.reorderPoint),
+    safetyStock: convert(plan.safetyStock),
+    thresholdVolume: convert(plan.thresholdVolume),
+    safeFillVolume: plan.safeFillVolume === null ? null : convert(plan.safeFillVolume),
+  };
+}
