@@ -1,7 +1,8 @@
 import { buildTank, type Tank as TankGeometry } from '../engine/geometry/index.js';
 import {
   createRateEstimator,
-  isRateEstimatorState,
+  RATE_STATE_VERSION,
+  type RateEstimator,
   type RatePoint,
   restoreRateEstimator,
   type TankEvent,
@@ -10,6 +11,7 @@ import {
 import { isVolumeUnit, toLitres } from '../engine/units/index.js';
 import { readingLitres } from './reading-volume.js';
 import type { Store } from './store/index.js';
+import type { RateCacheEntry } from './store/rate-cache.js';
 import type { SeriesReading } from './store/readings.js';
 import { storeReads, type TankReads } from './store/team-reads.js';
 import type { Delivery, Tank } from './store/types.js';
@@ -71,7 +73,8 @@ export interface RateResult {
  * The rate estimator over every reading and delivery of the tank, resumed from the cached state when the
  * cache is still valid (the store's triggers drop it on any change back in time), fed in the order of
  * engine/rate `analyzeSeries` (a delivery at or before a reading's instant goes first), so the result is
- * the batch result. The state after the newest reading is cached again; later deliveries are not.
+ * the batch result. The state after the newest reading is cached again; later deliveries are not. With
+ * nothing new to feed, the cache's summary answers and the state is not read at all.
  */
 export function rateOf(
   store: Store,
@@ -84,26 +87,43 @@ export function rateOf(
 ): RateResult {
   const specKey = JSON.stringify([tank.spec, filling]);
   const cached = reads.rateCache(tank.id);
-  // A state from another engine version, or for another shape, is not resumed.
-  const cache = cached?.specKey === specKey && isRateEstimatorState(cached.state) ? cached : undefined;
-  const since = cache ? cache.asOfTime : Number.MIN_SAFE_INTEGER;
-  const rows = reads.series(tank.id, since);
-  const fresh = seriesOf(geometry, rows, reads.deliveries(tank.id, since + 1));
-  if (cache && fresh.readings.length === 0 && fresh.deliveries.length === 0) {
-    // Nothing to feed: the cached state's events are the estimator's (restoring it would only copy them).
-    const { latest, trusted } = cache.points;
-    const skipped = cache.skipped + fresh.skipped;
-    return {
-      events: cache.state.events,
-      latest,
-      trusted: trusted ?? latest,
-      readings: cache.readings,
-      skipped,
-    };
+  // A cache from another engine version, or for another shape, is not used.
+  const cache =
+    cached?.specKey === specKey && cached.summary.version === RATE_STATE_VERSION ? cached : undefined;
+  if (cache) {
+    const rows = reads.series(tank.id, cache.asOfTime);
+    const fresh = seriesOf(geometry, rows, reads.deliveries(tank.id, cache.asOfTime + 1));
+    if (fresh.readings.length === 0 && fresh.deliveries.length === 0) {
+      const { latest, trusted } = cache.points;
+      return {
+        events: cache.summary.events,
+        latest,
+        trusted: trusted ?? latest,
+        readings: cache.readings,
+        skipped: cache.skipped + fresh.skipped,
+      };
+    }
+    // A state that does not parse (a damaged file) is rebuilt from every reading below.
+    const state = store.rateCache.state(teamId, tank.id);
+    if (state) return feed(store, teamId, tank.id, specKey, restoreRateEstimator(state), cache, rows, fresh);
   }
-  const estimator = cache
-    ? restoreRateEstimator(cache.state)
-    : createRateEstimator({ capacity: geometry.capacity, filling });
+  const rows = reads.series(tank.id, Number.MIN_SAFE_INTEGER);
+  const fresh = seriesOf(geometry, rows, reads.deliveries(tank.id, Number.MIN_SAFE_INTEGER + 1));
+  const estimator = createRateEstimator({ capacity: geometry.capacity, filling });
+  return feed(store, teamId, tank.id, specKey, estimator, undefined, rows, fresh);
+}
+
+/** Feeds the readings and deliveries after the cache (all of them without one) and keeps the new state. */
+function feed(
+  store: Store,
+  teamId: string,
+  tankId: number,
+  specKey: string,
+  estimator: RateEstimator,
+  cache: RateCacheEntry | undefined,
+  rows: readonly SeriesReading[],
+  fresh: Series,
+): RateResult {
   let latest = cache?.points.latest ?? null;
   let trusted = cache?.points.trusted ?? null;
   let d = 0;
@@ -123,7 +143,7 @@ export function rateOf(
     // resumes after `newest`): the cached count leaves them out, or they would be counted twice.
     let skippedAfter = 0;
     for (let i = rows.length - 1; i >= 0 && rows[i]!.time > newest.time; i--) skippedAfter++;
-    store.rateCache.put(teamId, tank.id, {
+    store.rateCache.put(teamId, tankId, {
       asOfTime: newest.time,
       readings,
       skipped: skipped - skippedAfter,

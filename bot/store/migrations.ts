@@ -1,6 +1,6 @@
 import type Database from 'better-sqlite3';
 import { createScheduleTables } from '../schedule/schema.js';
-import { RATE_CACHE_SQL } from './rate-cache.js';
+import { RATE_CACHE_SQL, RATE_SUMMARY_SQL } from './rate-cache.js';
 
 /**
  * The store's schema, as an ordered list: each migration runs once, in order, inside one transaction, and
@@ -129,6 +129,13 @@ export const migrations: Migration[] = [
     name: 'rate cache per tank (dropped by triggers on any change back in time); covering index of readings',
     up(db) {
       db.exec(RATE_CACHE_SQL);
+    },
+  },
+  {
+    version: 4,
+    name: 'rate cache summary per tank (events, newest readings) so a digest does not parse the state',
+    up(db) {
+      db.exec(RATE_SUMMARY_SQL);
     },
   },
 ];

@@ -40,7 +40,7 @@ describe('teamReads', () => {
         fc.array(fc.record({ tank: fc.nat({ max: 3 }), day: fc.integer({ min: 0, max: 200 }) }), {
           maxLength: 6,
         }),
-        // Rate-cache rows: [tank, as-of day] (one with a state that does not parse).
+        // Rate-cache rows: [tank, as-of day] (one with a state that does not parse, one whose summary does not).
         fc.array(fc.tuple(fc.nat({ max: 3 }), fc.integer({ min: 0, max: 200 })), { maxLength: 4 }),
         fc.array(fc.tuple(fc.integer({ min: -1, max: 201 }), fc.integer({ min: 0, max: 15 })), {
           minLength: 1,
@@ -71,6 +71,8 @@ describe('teamReads', () => {
             store.rateCache.put(team, tanks[tank]!, put);
             if (i === 0)
               store.db.prepare("UPDATE rate_cache SET state = '{' WHERE tank_id = ?").run(tanks[tank]);
+            if (i === 1)
+              store.db.prepare("UPDATE rate_cache SET summary = '[' WHERE tank_id = ?").run(tanks[tank]);
           });
           store.tanks.remove(team, tanks[3]!, 1);
           const direct = storeReads(store, team);

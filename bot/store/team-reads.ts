@@ -1,15 +1,23 @@
 import type Database from 'better-sqlite3';
 import { type DeliveryDbRow, toDelivery } from './deliveries.js';
 import type { Store } from './open-store.js';
-import { type RateCacheDbRow, type RateCacheEntry, rateCacheEntryOf } from './rate-cache.js';
+import {
+  RATE_CACHE_COLUMNS,
+  type RateCacheDbRow,
+  type RateCacheEntry,
+  RECENT_KEPT,
+  rateCacheEntryOf,
+} from './rate-cache.js';
 import { type ReadingDbRow, type SeriesReading, toReading } from './readings.js';
 import type { Delivery, Reading } from './types.js';
 
 /**
  * The per-tank reads of a tank's status. `storeReads` asks the store one query at a time; `teamReads` reads a
- * whole team in five set-based queries first and answers from them, so a digest of 50 tanks runs five
- * queries rather than 250. Each answer is the one the store would give in the same transaction: where the
- * prefetch does not cover a question (another `since`, a longer limit), it asks the store.
+ * whole team in a few set-based queries first and answers from them, so a digest of 50 tanks runs five
+ * queries rather than 250; a tank's newest readings come from its rate-cache summary (and the readings after
+ * it), read only for tanks without one. Each answer is the one the store would give in the same
+ * transaction: where the prefetch does not cover a question (another `since`, a longer limit), it asks the
+ * store.
  */
 export interface TankReads {
   rateCache(tankId: number): RateCacheEntry | undefined;
@@ -34,6 +42,7 @@ export function storeReads(store: Store, teamId: string): TankReads {
 }
 
 type SeriesRow = SeriesReading & { tank_id: number };
+type CacheRow = RateCacheDbRow & { tank_id: number };
 type SeriesTuple = [number, number, number, SeriesReading['kind'], number, string];
 
 const seriesRowOf = ([tank_id, id, time, kind, value, unit]: SeriesTuple): SeriesRow => ({
@@ -46,40 +55,41 @@ const seriesRowOf = ([tank_id, id, time, kind, value, unit]: SeriesTuple): Serie
 });
 
 function statementsOf(db: Database.Database) {
+  // Tanks with no summary to answer their newest readings from: no rate-cache row, or one without a summary.
+  const unsummarized = `SELECT t.team_id, t.id FROM tanks t LEFT JOIN rate_cache c ON c.team_id = t.team_id
+       AND c.tank_id = t.id WHERE t.team_id = @team AND c.summary IS NULL`;
   return {
-    rateCache: db.prepare<[string], RateCacheDbRow & { tank_id: number }>(
-      'SELECT tank_id, as_of_time, readings, skipped, spec_key, state, points FROM rate_cache WHERE team_id = ?',
+    rateCache: db.prepare<[string], CacheRow>(
+      `SELECT tank_id, ${RATE_CACHE_COLUMNS} FROM rate_cache WHERE team_id = ?`,
     ),
-    // Readings after each tank's cached state: what the rate estimator still has to be fed (the WHERE is
-    // the partial index readings_series's, so the index alone answers it). CROSS JOIN keeps the cache rows
-    // outside: SQLite otherwise walked all of the team's readings (five times slower at 30 a tank).
-    sinceCache: db.prepare<[string], SeriesRow>(
-      `SELECT r.tank_id, r.id, r.time, r.kind, r.value, r.unit
-       FROM rate_cache c CROSS JOIN readings r INDEXED BY readings_series
+    // Readings after each tank's cached state: what the rate estimator still has to be fed, whole (the
+    // newest of them is the tank's latest reading). CROSS JOIN keeps the cache rows outside: SQLite
+    // otherwise walked all of the team's readings (five times slower at 30 a tank).
+    sinceCache: db.prepare<[string], ReadingDbRow>(
+      `SELECT r.* FROM rate_cache c CROSS JOIN readings r INDEXED BY readings_series
          ON r.team_id = c.team_id AND r.tank_id = c.tank_id AND r.deleted_at IS NULL AND r.status = 'ok'
             AND r.time > c.as_of_time
        WHERE c.team_id = ? ORDER BY r.tank_id, r.time, r.id`,
     ),
-    // The newest `limit` live confirmed readings of every tank of the team (a removed one too, as the store
-    // answers for it), newest first: a bounded index walk per
-    // tank (a window function over all rows would read a dense sensor's whole history, and was slower here).
+    // The newest `limit` live confirmed readings of every tank of the team without a summary (a removed one
+    // too, as the store answers for it), newest first: a bounded index walk per tank (a window function over
+    // all rows would read a dense sensor's whole history, and was slower here).
     // Rows as arrays (`raw`): a third faster than objects at 550 a team; seriesRowOf names them.
     newest: db
-      .prepare<[number, string], SeriesTuple>(
-        `SELECT r.tank_id, r.id, r.time, r.kind, r.value, r.unit FROM tanks t JOIN readings r ON r.id IN (
+      .prepare<[{ team: string; limit: number }], SeriesTuple>(
+        `SELECT r.tank_id, r.id, r.time, r.kind, r.value, r.unit FROM (${unsummarized}) t JOIN readings r ON r.id IN (
          SELECT id FROM readings INDEXED BY readings_series
          WHERE team_id = t.team_id AND tank_id = t.id AND deleted_at IS NULL AND status = 'ok'
-         ORDER BY time DESC, id DESC LIMIT ?)
-       WHERE t.team_id = ? ORDER BY r.tank_id, r.time DESC, r.id DESC`,
+         ORDER BY time DESC, id DESC LIMIT @limit)
+       ORDER BY r.tank_id, r.time DESC, r.id DESC`,
       )
       .raw(true),
-    // The newest one whole (its raw text is shown), as `readings.latest`.
-    latest: db.prepare<[string], ReadingDbRow>(
-      `SELECT r.* FROM tanks t JOIN readings r ON r.id = (
+    // Their newest one whole (its raw text is shown), as `readings.latest`.
+    latest: db.prepare<[{ team: string }], ReadingDbRow>(
+      `SELECT r.* FROM (${unsummarized}) t JOIN readings r ON r.id = (
          SELECT id FROM readings INDEXED BY readings_series
          WHERE team_id = t.team_id AND tank_id = t.id AND deleted_at IS NULL AND status = 'ok'
-         ORDER BY time DESC, id DESC LIMIT 1)
-       WHERE t.team_id = ?`,
+         ORDER BY time DESC, id DESC LIMIT 1)`,
     ),
     deliveries: db.prepare<[string, number], DeliveryDbRow>(
       `SELECT * FROM deliveries WHERE team_id = ? AND deleted_at IS NULL AND time >= ?
@@ -108,10 +118,17 @@ const seriesOfRow = ({ id, time, kind, value, unit }: SeriesReading): SeriesRead
   unit,
 });
 
+/** A tank's newest readings, newest first; `complete` when there are no older ones. */
+interface Newest {
+  rows: SeriesReading[];
+  complete: boolean;
+}
+
 /**
- * A team's reads prefetched: every rate-cache row, the readings after each, the newest `newestLimit` readings
- * of every tank and the deliveries from `deliveriesFrom(caches, latest)` (the earliest instant any tank will
- * ask about). Call it inside the transaction the statuses are read in.
+ * A team's reads prefetched: every rate-cache row, the readings after each, the newest readings of every tank
+ * (from its summary and the readings after it, or `newestLimit` of them read for tanks without one) and the
+ * deliveries from `deliveriesFrom(caches, latest)` (the earliest instant any tank will ask about). Call it
+ * inside the transaction the statuses are read in.
  */
 export function teamReads(
   store: Store,
@@ -129,14 +146,31 @@ export function teamReads(
   }
   const fallback = storeReads(store, teamId);
   const caches = new Map<number, RateCacheEntry>();
+  // Tanks whose newest readings the queries below leave out (a summary is stored, even a damaged one).
+  const summarized = new Set<number>();
   for (const row of s.rateCache.all(teamId)) {
+    if (row.summary !== null) summarized.add(row.tank_id);
     const entry = rateCacheEntryOf(row);
     if (entry) caches.set(row.tank_id, entry);
   }
   const sinceCache = groupBy(s.sinceCache.all(teamId));
-  const newest = groupBy(s.newest.all(newestLimit, teamId).map(seriesRowOf));
+  const newest = new Map<number, Newest>();
   const latest = new Map<number, Reading>();
-  for (const row of s.latest.all(teamId)) latest.set(row.tank_id, toReading(row));
+  for (const [tankId, entry] of caches) {
+    const after = sinceCache.get(tankId) ?? [];
+    const { recent, latest: kept } = entry.summary;
+    const rows: SeriesReading[] = [];
+    for (let i = after.length - 1; i >= 0; i--) rows.push(seriesOfRow(after[i]!));
+    rows.push(...recent);
+    newest.set(tankId, { rows, complete: recent.length < RECENT_KEPT });
+    const last = after[after.length - 1];
+    const whole = last ? toReading(last) : kept;
+    if (whole) latest.set(tankId, whole);
+  }
+  for (const [tankId, rows] of groupBy(s.newest.all({ team: teamId, limit: newestLimit }).map(seriesRowOf))) {
+    newest.set(tankId, { rows: rows.map(seriesOfRow), complete: rows.length < newestLimit });
+  }
+  for (const row of s.latest.all({ team: teamId })) latest.set(row.tank_id, toReading(row));
   const from = deliveriesFrom(caches, latest);
   const deliveries = groupBy(s.deliveries.all(teamId, from));
 
@@ -148,12 +182,18 @@ export function teamReads(
       return (sinceCache.get(tankId) ?? []).map(seriesOfRow);
     },
     recentSeries: (tankId, since, limit) => {
-      if (limit > newestLimit) return fallback.recentSeries(tankId, since, limit);
+      // A tank with a damaged summary was in neither prefetch.
+      if (summarized.has(tankId) && !caches.has(tankId)) return fallback.recentSeries(tankId, since, limit);
+      const known = newest.get(tankId) ?? { rows: [], complete: true };
       // Newest first, so those after `since` are a prefix of the newest: the query's answer, reversed.
-      const rows = (newest.get(tankId) ?? []).filter((r) => r.time > since).slice(0, limit);
+      const rows = known.rows.filter((r) => r.time > since).slice(0, limit);
+      if (rows.length < limit && !known.complete && rows.length === known.rows.length) {
+        return fallback.recentSeries(tankId, since, limit);
+      }
       return rows.reverse().map(seriesOfRow);
     },
-    latest: (tankId) => latest.get(tankId),
+    latest: (tankId) =>
+      summarized.has(tankId) && !caches.has(tankId) ? fallback.latest(tankId) : latest.get(tankId),
     deliveries: (tankId, since) => {
       if (since < from) return fallback.deliveries(tankId, since);
       return (deliveries.get(tankId) ?? []).filter((d) => d.time >= since).map(toDelivery);
