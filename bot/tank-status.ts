@@ -136,10 +136,18 @@ export function tankStatus(
   const since = (latestRow?.time ?? now) - HISTORY_WINDOW_MS;
   const recentOf = (limit: number) =>
     seriesOf(geometry, reads.recentSeries(tankId, since, limit), reads.deliveries(tankId, since + 1));
-  let recent = recentOf(options.historyLimit ?? HISTORY_LIMIT);
-  // A reading the shape cannot hold would leave a short history fewer readings than asked: read them all.
-  if (recent.skipped > 0 && (options.historyLimit ?? HISTORY_LIMIT) < HISTORY_LIMIT) {
-    recent = recentOf(HISTORY_LIMIT);
+  const limit = options.historyLimit ?? HISTORY_LIMIT;
+  let asked = limit;
+  let recent = recentOf(asked);
+  // Readings the shape cannot hold leave a short history fewer readings than asked: ask for as many more,
+  // until there are enough or no more (a few more stay within what a team's prefetch holds).
+  while (
+    recent.readings.length < limit &&
+    recent.readings.length + recent.skipped === asked &&
+    asked < HISTORY_LIMIT
+  ) {
+    asked = Math.min(HISTORY_LIMIT, limit + recent.skipped);
+    recent = recentOf(asked);
   }
   const safeFillLitres =
     ((tank.settings.safeFillPercent ?? DEFAULT_SAFE_FILL_PERCENT) / 100) * geometry.capacity;
