@@ -15,18 +15,24 @@ const HOUR_MS = 3_600_000;
 const WARM_UP_DAYS = 7;
 
 /** The supplier terms and limits every simulated tank gets (invented, typical of bulk chemical supply). */
-export function simSettings(capacity: number, filling: boolean): RefillSettings {
+export function simSettings(
+  capacity: number,
+  filling: boolean,
+  terms: Partial<RefillSettings> = {},
+): RefillSettings {
   return {
     threshold: { percent: filling ? 85 : 10 },
     leadTimeDays: 2,
     businessDays: true,
     orderCutoffHour: 12,
     deliveryWeekdays: [1, 2, 3, 4, 5],
+    deliveryHours: [8, 12],
     minimumOrder: 0.2 * capacity,
     orderIncrement: 0.01 * capacity,
     safeFillPercent: 90,
     serviceLevel: 0.95,
     timeZone: 'UTC',
+    ...terms,
   };
 }
 
@@ -107,6 +113,8 @@ export interface SimOutcome {
   dryOuts: number;
   /** True volume just before each arrival, as a fraction of capacity. */
   levelsAtArrival: number[];
+  /** When each of those arrivals came (epoch ms). */
+  arrivalTimes: number[];
   /** Arrivals that took the tank above its safe fill level. */
   overfills: number;
   /** The largest excess over the safe fill level after an arrival, fraction of capacity. */
@@ -132,13 +140,13 @@ function naturalFlow(s: Scenario, start: number, steps: number): Float64Array {
   return flow;
 }
 
-export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
+export function simulateRefill(s: Scenario, policy: Policy, terms: Partial<RefillSettings> = {}): SimOutcome {
   const start = s.readings[0]?.time ?? 0;
   const end = s.readings[s.readings.length - 1]?.time ?? start;
   const steps = Math.floor((end - start) / GRID_MS) + 1;
   const flow = naturalFlow(s, start, steps);
   const cap = s.capacity;
-  const settings = simSettings(cap, s.filling);
+  const settings = simSettings(cap, s.filling, terms);
   const threshold = (cap * ('percent' in settings.threshold ? settings.threshold.percent : 0)) / 100;
   const safeFill = (cap * settings.safeFillPercent) / 100;
   const estimator = createRateEstimator({ capacity: cap, filling: s.filling });
@@ -156,6 +164,7 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
     cycles: 1,
     dryOuts: 0,
     levelsAtArrival: [],
+    arrivalTimes: [],
     overfills: 0,
     worstOverfill: 0,
   };
@@ -175,6 +184,7 @@ export function simulateRefill(s: Scenario, policy: Policy): SimOutcome {
     volume = Math.min(cap, Math.max(0, volume + flow[i]!));
     if (pending && t >= pending.arriveAt) {
       out.levelsAtArrival.push(volume / cap);
+      out.arrivalTimes.push(t);
       out.deliveries++;
       volume = s.filling ? volume - Math.min(volume, pending.quantity) : volume + pending.quantity;
       if (!s.filling && volume > safeFill * 1.0001) {

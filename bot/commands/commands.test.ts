@@ -69,6 +69,17 @@ describe('command handlers', () => {
     expect(answer?.facts?.find((f) => f.label === 'Refill')?.value).not.toMatch(/default threshold/);
   });
 
+  it('keeps the hours a delivery arrives in, and plans to the window', async () => {
+    await tankT4();
+    await say('set time zone America/Chicago');
+    await say('set T4 delivery days tue,thu');
+    const [saved] = await say('set T4 delivery hours 8am to noon');
+    expect(saved?.headline).toMatch(/deliveries arrive between 08:00 and 12:00/);
+    expect(session.store.tanks.byCode(TEAM, 'T4')!.settings.deliveryHours).toEqual([8, 12]);
+    expect((await say('set T4 delivery hours noon-8'))[0]?.kind).toBe('error');
+    expect(session.store.tanks.byCode(TEAM, 'T4')!.settings.deliveryHours).toEqual([8, 12]);
+  });
+
   it('lists the tanks that run low this week', async () => {
     await tankT4();
     await say('add tank T5 vertical-cylinder diameter=48in length=72in unit=gal');

@@ -47,6 +47,7 @@ const TOPICS: Record<HelpTopic, { title: string; examples: [string, string][] }>
       ['set T4 threshold 20%', 'order before the tank reaches 20%'],
       ['set T4 lead time 3 business days', 'days from order to delivery'],
       ['set T4 delivery days tue,thu', 'when the supplier delivers'],
+      ['set T4 delivery hours 8-12', 'the hours a delivery arrives in'],
       ['set T4 safe fill 90%', 'fill no higher than this'],
       ['set time zone America/Chicago', 'the team’s zone (UTC until set)'],
       ['set digest 07:00 weekdays here', 'a morning summary in this channel'],

@@ -9,6 +9,7 @@ import { isValidTimeZone } from './time-zone.js';
 
 const WEEKDAY_NAMES = ['', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat', 'Sun'];
 const dayList = (days: number[]) => days.map((d) => WEEKDAY_NAMES[d] ?? String(d)).join(', ');
+const hourOfDay = (hour: number) => (hour === 24 ? 'midnight' : `${String(hour).padStart(2, '0')}:00`);
 
 /** A tank setting as a patch of the stored settings (volumes in litres) and the words that confirm it. */
 function tankSettingPatch(setting: Setting): { patch: TankSettings; said: string } | undefined {
@@ -45,6 +46,11 @@ function tankSettingPatch(setting: Setting): { patch: TankSettings; said: string
       return {
         patch: { deliveryWeekdays: setting.weekdays },
         said: `delivery days ${dayList(setting.weekdays)}`,
+      };
+    case 'delivery-hours':
+      return {
+        patch: { deliveryHours: [setting.from, setting.to] },
+        said: `deliveries arrive between ${hourOfDay(setting.from)} and ${hourOfDay(setting.to)}`,
       };
     case 'minimum-order':
       return {

@@ -62,3 +62,21 @@ export function readHourOfDay(text: string): Result<number> {
     return fail(`"${text.trim()}" is not an hour; give a whole hour like 14:00 or 2pm.`);
   return ok(time.value.hour);
 }
+
+/**
+ * "8-12", "8am to noon", "13:00-midnight" -> whole local hours [from, to) with from < to; an end of
+ * midnight (0) means the end of the day (24), so a window reaching midnight can be said plainly.
+ */
+export function readHourRange(text: string): Result<[number, number]> {
+  const parts = text.trim().split(/\s*(?:-|–|\bto\b|\buntil\b|\btill\b)\s*/i);
+  if (parts.length !== 2 || parts.some((p) => p === ''))
+    return fail(`"${text.trim()}" is not two whole hours; write it like 8-12, 8am to noon or 13:00-17:00.`);
+  const from = readHourOfDay(parts[0] ?? '');
+  if (!from.ok) return from;
+  const to = readHourOfDay(parts[1] ?? '');
+  if (!to.ok) return to;
+  const end = to.value === 0 ? 24 : to.value;
+  if (end <= from.value)
+    return fail(`The window must close after it opens, the same day: "${text.trim()}" does not.`);
+  return ok([from.value, end]);
+}

@@ -164,6 +164,12 @@ export const settingSchema = z.discriminatedUnion('key', [
   z.object({ key: z.literal('order-cutoff'), hour: z.number().int().min(0).max(23) }),
   /** ISO weekdays, 1 = Monday. */
   z.object({ key: z.literal('delivery-days'), weekdays: z.array(z.number().int().min(1).max(7)).min(1) }),
+  /** Local whole hours [from, to) a delivery arrives within on its day; to = 24 is the end of the day. */
+  z.object({
+    key: z.literal('delivery-hours'),
+    from: z.number().int().min(0).max(23),
+    to: z.number().int().min(1).max(24),
+  }),
   z.object({ key: z.literal('minimum-order'), volume: volumeSchema }),
   z.object({ key: z.literal('order-increment'), volume: volumeSchema }),
   z.object({ key: z.literal('safe-fill'), percent: finite.gt(0).max(100) }),

@@ -1,12 +1,12 @@
 import { fail, ok, type Result } from '../../engine/result.js';
 import { checkTimeZone } from '../schedule/local-time.js';
-import { formatClock, readClockTime, readHourOfDay, readWeekdays } from './clockWords.js';
+import { formatClock, readClockTime, readHourOfDay, readHourRange, readWeekdays } from './clockWords.js';
 import type { CommandOf, ParseContext, Setting } from './command.js';
 import { parsePercent, parseVolume } from './measurement.js';
 import { matchTankPrefix, unknownTankMessage } from './tankName.js';
 
 const SET_FORMS =
-  'e.g. `set T4 threshold 20%`, `set T4 lead time 3 business days`, `set T4 delivery days tue,thu`, `set time zone America/Chicago` or `set digest 07:00 weekdays here`';
+  'e.g. `set T4 threshold 20%`, `set T4 lead time 3 business days`, `set T4 delivery days tue,thu`, `set T4 delivery hours 8-12`, `set time zone America/Chicago` or `set digest 07:00 weekdays here`';
 
 type SettingReader = (value: string) => Result<Setting>;
 
@@ -17,6 +17,10 @@ const TANK_SETTINGS: [RegExp, SettingReader][] = [
   [
     /(?:order\s+)?cut[\s-]?off(?:\s+hour)?/,
     (v) => mapResult(readHourOfDay(v), (hour) => ({ key: 'order-cutoff', hour })),
+  ],
+  [
+    /deliver(?:y|ies)\s+(?:hours|window|times?)/,
+    (v) => mapResult(readHourRange(v), ([from, to]) => ({ key: 'delivery-hours', from, to })),
   ],
   [
     /deliver(?:y|ies)\s+days?/,

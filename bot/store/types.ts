@@ -36,6 +36,8 @@ export interface TankSettings {
   businessDays?: boolean;
   orderCutoffHour?: number;
   deliveryWeekdays?: number[];
+  /** Local whole hours [from, to) a delivery arrives within; absent = any time of the day. */
+  deliveryHours?: [number, number];
   minimumOrder?: number;
   orderIncrement?: number;
   safeFillPercent?: number;

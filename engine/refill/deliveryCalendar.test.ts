@@ -3,7 +3,8 @@ import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
 import {
   arrivalDay,
-  endOfDay,
+  deliveryCloses,
+  deliveryOpens,
   isoDateOf,
   latestOrderFor,
   type OrderCalendar,
@@ -19,6 +20,7 @@ const calendar = (over: Partial<OrderCalendar>): OrderCalendar => ({
   businessDays: false,
   orderCutoffHour: 24,
   deliveryWeekdays: [1, 2, 3, 4, 5, 6, 7],
+  deliveryHours: [0, 24],
   timeZone: chicago,
   ...over,
 });
@@ -118,6 +120,7 @@ describe('latestOrderFor', () => {
           businessDays: fc.boolean(),
           orderCutoffHour: fc.constantFrom(8, 12, 16.5, 24),
           deliveryWeekdays: fc.uniqueArray(fc.integer({ min: 1, max: 7 }), { minLength: 1, maxLength: 7 }),
+          deliveryHours: fc.constantFrom<[number, number]>([0, 24], [8, 12], [6.5, 17], [0, 2.5]),
           timeZone: fc.constantFrom(...zones),
         }),
         (deadline, cal) => {
@@ -129,11 +132,47 @@ describe('latestOrderFor', () => {
           expect(cal.deliveryWeekdays).toContain(weekdayOf(r.deliveryDay));
           expect(arrivalDay(r.orderBy, cal)).toBe(r.deliveryDay);
           // one minute later is too late
-          expect(endOfDay(arrivalDay(r.orderBy + 60_000, cal), cal.timeZone)).toBeGreaterThan(deadline);
+          expect(deliveryCloses(arrivalDay(r.orderBy + 60_000, cal), cal)).toBeGreaterThan(deadline);
         },
       ),
       { numRuns: 300 },
     );
+  });
+});
+
+describe('delivery hours', () => {
+  // A supplier who delivers "before noon" (common practice for bulk chemical and fuel drops) can arrive on
+  // the very day the tank reaches its threshold, if that is after noon.
+  const beforeNoon = calendar({ deliveryHours: [8, 12] });
+
+  it('allows the deadline day itself when its delivery window closes before the deadline', () => {
+    const r = latestOrderFor(at('2026-12-09T15:00'), beforeNoon);
+    expect(isoDateOf(r?.deliveryDay ?? 0)).toBe('2026-12-09');
+    expect(r && local(r.deliveryBy)).toBe('2026-12-09T12:00:00-06:00');
+    // a whole-day window needs the day before (the truck may come at any hour)
+    expect(isoDateOf(latestOrderFor(at('2026-12-09T15:00'), calendar({}))?.deliveryDay ?? 0)).toBe(
+      '2026-12-08',
+    );
+  });
+
+  it('moves to the day before when the deadline falls inside the window', () => {
+    const r = latestOrderFor(at('2026-12-09T11:00'), beforeNoon);
+    expect(isoDateOf(r?.deliveryDay ?? 0)).toBe('2026-12-08');
+    expect(r && local(r.deliveryBy)).toBe('2026-12-08T12:00:00-06:00');
+  });
+
+  it('opens and closes at local hours across the spring change (2026-03-08, Chicago: 02:00-03:00 skipped)', () => {
+    const day = Date.UTC(2026, 2, 8) / 86_400_000;
+    const cal = calendar({ deliveryHours: [2.5, 12] });
+    // 02:30 does not exist that morning: the window opens at the next valid minute, 03:30 CDT (luxon's rule).
+    expect(local(deliveryOpens(day, cal))).toBe('2026-03-08T03:30:00-05:00');
+    expect(local(deliveryCloses(day, cal))).toBe('2026-03-08T12:00:00-05:00');
+  });
+
+  it('a window of the whole day closes at its last millisecond, as before', () => {
+    const day = Date.UTC(2026, 11, 9) / 86_400_000;
+    expect(local(deliveryCloses(day, calendar({})))).toBe('2026-12-09T23:59:59.999-06:00');
+    expect(local(deliveryOpens(day, calendar({})))).toBe('2026-12-09T00:00:00-06:00');
   });
 });
 

@@ -7,7 +7,7 @@ import type { RefillSettings } from './settings.js';
 
 export type OrderCalendar = Pick<
   RefillSettings,
-  'leadTimeDays' | 'businessDays' | 'orderCutoffHour' | 'deliveryWeekdays' | 'timeZone'
+  'leadTimeDays' | 'businessDays' | 'orderCutoffHour' | 'deliveryWeekdays' | 'deliveryHours' | 'timeZone'
 >;
 
 const DAY_MS = 86_400_000;
@@ -54,6 +54,23 @@ export function instantOf(day: CivilDay, hours: number, timeZone: string): numbe
 export const startOfDay = (day: CivilDay, timeZone: string): number => instantOf(day, 0, timeZone);
 export const endOfDay = (day: CivilDay, timeZone: string): number => instantOf(day + 1, 0, timeZone) - 1;
 
+/** The first moment a delivery can come on `day` (the opening of the supplier's delivery hours). */
+export function deliveryOpens(
+  day: CivilDay,
+  calendar: Pick<OrderCalendar, 'deliveryHours' | 'timeZone'>,
+): number {
+  return instantOf(day, calendar.deliveryHours[0], calendar.timeZone);
+}
+
+/** The last moment a delivery can come on `day`: its window's closing hour, or the day's last millisecond. */
+export function deliveryCloses(
+  day: CivilDay,
+  calendar: Pick<OrderCalendar, 'deliveryHours' | 'timeZone'>,
+): number {
+  const closing = calendar.deliveryHours[1];
+  return closing >= 24 ? endOfDay(day, calendar.timeZone) : instantOf(day, closing, calendar.timeZone);
+}
+
 /** The last moment of `day` at which an order still counts as placed that day. */
 export function cutoffOn(day: CivilDay, calendar: OrderCalendar): number {
   return calendar.orderCutoffHour >= 24
@@ -83,7 +100,9 @@ export function arrivalFromOrderDay(day: CivilDay, calendar: OrderCalendar): Civ
 export function arrivalDay(orderAt: number, calendar: OrderCalendar): CivilDay {
   const placed = civilDayOf(orderAt, calendar.timeZone);
   const counted = orderAt > cutoffOn(placed, calendar) ? placed + 1 : placed;
-  return arrivalFromOrderDay(counted, calendar);
+  const day = arrivalFromOrderDay(counted, calendar);
+  // With no lead time an order after that day's delivery hours have closed counts from the next day.
+  return deliveryCloses(day, calendar) < orderAt ? arrivalFromOrderDay(counted + 1, calendar) : day;
 }
 
 export interface LatestOrder {
@@ -91,27 +110,28 @@ export interface LatestOrder {
   orderBy: number;
   /** The local date its delivery arrives. */
   deliveryDay: CivilDay;
-  /** End of that date: the truck may come at any hour, so the whole day must lie before the deadline. */
+  /** The close of that date's delivery hours (the end of the date when the truck may come at any hour): the
+   * whole window must lie before the deadline. */
   deliveryBy: number;
 }
 
 /**
- * The latest order whose whole delivery day lies at or before `deadline` (epoch ms). The arrival date never
+ * The latest order whose whole delivery window lies at or before `deadline` (epoch ms). The arrival date never
  * moves earlier when the order day moves later, so scanning order days backward finds the latest one.
  */
 export function latestOrderFor(deadline: number, calendar: OrderCalendar): LatestOrder | null {
-  // The last date that ends by the deadline (a deadline at 23:59:59.999 still allows its own date).
-  const lastDay = civilDayOf(deadline + 1, calendar.timeZone) - 1;
+  // The last date whose delivery window closes by the deadline (with a whole-day window, a deadline at
+  // 23:59:59.999 still allows its own date).
+  const deadlineDay = civilDayOf(deadline, calendar.timeZone);
+  const lastDay = deliveryCloses(deadlineDay, calendar) <= deadline ? deadlineDay : deadlineDay - 1;
   const lead = Math.ceil(calendar.leadTimeDays);
   // No delivery comes sooner than `lead` days after its order date, so the scan starts there.
   for (let day = lastDay - lead, step = 0; step < 2 * lead + 40; day--, step++) {
     const deliveryDay = arrivalFromOrderDay(day, calendar);
     if (deliveryDay <= lastDay) {
-      return {
-        orderBy: cutoffOn(day, calendar),
-        deliveryDay,
-        deliveryBy: endOfDay(deliveryDay, calendar.timeZone),
-      };
+      const deliveryBy = deliveryCloses(deliveryDay, calendar);
+      // With no lead time the order day is the delivery day: the order must also come before the window shuts.
+      return { orderBy: Math.min(cutoffOn(day, calendar), deliveryBy), deliveryDay, deliveryBy };
     }
   }
   return null;

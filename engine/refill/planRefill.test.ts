@@ -44,6 +44,32 @@ function errorOf(input: RefillInput): string {
 }
 
 describe('planRefill', () => {
+  it('counts on a delivery before noon on the threshold day itself, and sizes it on the morning volume', () => {
+    // The Ridge tank, a supplier who comes Tue-Thu between 08:00 and 12:00, and the last reading at 15:00:
+    // 800 L over the threshold at 50 L/day -> Wed 23 Dec 15:00. Wednesday's window closes at noon, before
+    // that, so Wednesday is the last delivery day (a whole-day window would need Tuesday), ordered 3 business
+    // days before (Mon, Tue, Wed): Fri 18 Dec by noon. Sized on the volume when the window opens, Wed 08:00,
+    // 15 days 17 h after the reading: 1200 - 50 x 15.708 = 414.6 L.
+    const mornings = {
+      ...ridge,
+      now: at('2026-12-07T15:00'),
+      lastReadingAt: at('2026-12-07T15:00'),
+      settings: {
+        ...ridge.settings,
+        deliveryWeekdays: [2, 3, 4],
+        deliveryHours: [8, 12] as [number, number],
+      },
+    };
+    const p = plan(mornings);
+    expect(local(p.thresholdAt)).toBe('Wed 2026-12-23 15:00');
+    expect(local(p.deliveryBy)).toBe('Wed 2026-12-23 12:00');
+    expect(local(p.orderBy)).toBe('Fri 2026-12-18 12:00');
+    expect(p.expectedVolumeOnArrival).toBeCloseTo(1200 - 50 * (15 + 17 / 24), 6);
+    const wholeDay = plan({ ...mornings, settings: { ...mornings.settings, deliveryHours: [0, 24] } });
+    expect(local(wholeDay.deliveryBy)).toBe('Tue 2026-12-22 23:59');
+    expect(local(wholeDay.orderBy)).toBe('Thu 2026-12-17 12:00');
+  });
+
   it('plans the order worked out by hand', () => {
     // 1200 L - 400 L threshold (20%) = 800 L at 50 L/day: 16 days -> Wed 23 Dec 08:00. Last Tue/Thu delivery
     // day ending before that: Tue 22 Dec. 3 business days earlier (Fri, Mon, Tue) is Thu 17 Dec, by noon.

@@ -1,7 +1,7 @@
 // The refill plan for one tank at `now`: when to order (or book a pick-up), what arrives when, and how much.
 // Pure: the clock is an argument. Litres, epoch ms, litres per day (positive while emptying).
 import { fail, ok, type Result } from '../result.js';
-import { arrivalDay, endOfDay, latestOrderFor, startOfDay } from './deliveryCalendar.js';
+import { arrivalDay, deliveryCloses, deliveryOpens, latestOrderFor } from './deliveryCalendar.js';
 import { orderQuantity, type QuantityIssue } from './orderQuantity.js';
 import { daysToThreshold, reorderPoint } from './reorderPoint.js';
 import { parseRefillSettings, type RefillSettings, type RefillSettingsInput } from './settings.js';
@@ -42,17 +42,18 @@ export interface RefillPlan {
   mode: 'delivery' | 'pick-up';
   /** Latest order time that still arrives in time; null when the threshold is never reached at this rate. */
   orderBy: number | null;
-  /** End of the latest allowed delivery day before the threshold. */
+  /** Close of the delivery hours (end of the day by default) of the latest delivery day before the threshold. */
   deliveryBy: number | null;
   /** When the tank reaches its threshold at the service level (the early side of the forecast). */
   thresholdAt: number | null;
-  /** End of the delivery day of an order placed now. */
+  /** Close of the delivery hours on the delivery day of an order placed now. */
   earliestDelivery: number;
   /** Litres to order (to the safe fill level on arrival, whole increments, at least the minimum); null
    * when the capacity is unknown. A pick-up: litres to take. */
   quantity: number | null;
   quantityIssue: QuantityIssue | null;
-  /** Litres expected in the tank when the planned delivery can first arrive (start of its day, or now). */
+  /** Litres expected in the tank when the planned delivery can first arrive (the opening of its delivery
+   * hours, or now). */
   expectedVolumeOnArrival: number;
   /** Tank volume at which to order, and the safety stock inside it, litres. */
   reorderPoint: number;
@@ -106,10 +107,10 @@ export function planRefill(input: RefillInput): Result<RefillPlan> {
   // The order this plan stands for: placed now when late (or when there is no deadline), else at orderBy.
   const orderAt = verdict === 'order-now' || orderBy === null ? input.now : orderBy;
   const deliveryDay = orderAt === orderBy && latest ? latest.deliveryDay : arrivalDay(orderAt, settings);
-  const deliveryEnd = endOfDay(deliveryDay, settings.timeZone);
-  const arrival = Math.max(startOfDay(deliveryDay, settings.timeZone), input.now, input.lastReadingAt);
-  // The start of the delivery day is when an emptying tank holds the most (and a filling one the least):
-  // sizing the order there keeps a morning delivery below the safe fill level.
+  const deliveryEnd = deliveryCloses(deliveryDay, settings);
+  const arrival = Math.max(deliveryOpens(deliveryDay, settings), input.now, input.lastReadingAt);
+  // The opening of the delivery hours is when an emptying tank holds the most (and a filling one the least):
+  // sizing the order there keeps the earliest possible delivery below the safe fill level.
   const expected = clamp(volume - (input.rate * (arrival - input.lastReadingAt)) / DAY_MS, 0, capacity);
   // Sized on the expected volume, as the order states it (safe fill minus expected, whole increments): the
   // figure a person can check. A tank that used less than expected has less room, so every reply with a
@@ -130,7 +131,7 @@ export function planRefill(input: RefillInput): Result<RefillPlan> {
     deliveryBy: latest?.deliveryBy ?? null,
     thresholdAt,
     earliestDelivery:
-      orderAt === input.now ? deliveryEnd : endOfDay(arrivalDay(input.now, settings), settings.timeZone),
+      orderAt === input.now ? deliveryEnd : deliveryCloses(arrivalDay(input.now, settings), settings),
     quantity: sized.quantity,
     quantityIssue: sized.issue,
     expectedVolumeOnArrival: expected,

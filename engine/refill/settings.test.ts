@@ -18,6 +18,7 @@ describe('parseRefillSettings', () => {
         businessDays: false,
         orderCutoffHour: 24,
         deliveryWeekdays: [1, 2, 3, 4, 5, 6, 7],
+        deliveryHours: [0, 24],
         minimumOrder: 0,
         orderIncrement: 0,
         safeFillPercent: 90,
@@ -53,6 +54,16 @@ describe('parseRefillSettings', () => {
     expect(errorOf({})).toMatch(/"threshold" is missing.*percent/);
     expect(errorOf({ threshold: { percent: 120 } })).toMatch(/threshold/);
     expect(errorOf({ threshold: { litres: 5 } })).toMatch(/threshold/);
+  });
+
+  it('takes delivery hours as a [from, to] pair of local hours and explains a wrong one', () => {
+    const r = parseRefillSettings({ threshold: { percent: 20 }, deliveryHours: [8, 12] });
+    expect(r.ok && r.value.deliveryHours).toEqual([8, 12]);
+    expect(errorOf({ threshold: { percent: 20 }, deliveryHours: [12, 8] })).toMatch(
+      /deliveryHours.*\[8, 12\]/,
+    );
+    expect(errorOf({ threshold: { percent: 20 }, deliveryHours: [8] })).toMatch(/deliveryHours/);
+    expect(errorOf({ threshold: { percent: 20 }, deliveryHours: [8, 25] })).toMatch(/deliveryHours/);
   });
 
   it('suggests the nearest key for a misspelt one', () => {

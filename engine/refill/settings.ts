@@ -24,6 +24,13 @@ export const refillSettingsSchema = z.strictObject({
   orderCutoffHour: z.number().min(0).max(24).default(24),
   /** ISO weekdays (1 = Monday .. 7 = Sunday) on which deliveries arrive; default every day. */
   deliveryWeekdays: z.array(z.number().int().min(1).max(7)).min(1).default([1, 2, 3, 4, 5, 6, 7]),
+  /** Local hours [from, to) within which a delivery arrives on its day, e.g. [8, 12] for "mornings before
+   * noon"; default the whole day. The plan needs the whole window before the threshold and sizes the order
+   * on the volume at the window's opening (the fullest the tank can be when the truck comes). */
+  deliveryHours: z
+    .tuple([z.number().min(0).max(24), z.number().min(0).max(24)])
+    .refine(([from, to]) => from < to, { message: 'the first hour must come before the second' })
+    .default([0, 24]),
   minimumOrder: z.number().min(0).default(0),
   /** Orders come in whole multiples of this (totes, compartments); 0 = any amount. */
   orderIncrement: z.number().min(0).default(0),
@@ -60,6 +67,7 @@ const hints: Record<string, string> = {
   deliveryWeekdays: 'ISO weekday numbers 1 (Monday) to 7 (Sunday), such as [2, 4]',
   timeZone: 'an IANA name such as "America/Chicago" or "Europe/Berlin"',
   orderCutoffHour: 'a local hour from 0 to 24, such as 12 for noon',
+  deliveryHours: 'two local hours [from, to] with from before to, such as [8, 12] for mornings',
   safeFillPercent: 'a percent above 0 and at most 100, such as 90',
 };
 

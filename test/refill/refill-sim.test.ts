@@ -1,5 +1,6 @@
 // The closed-loop refill simulation of `npm run bench:accuracy`, on one steady invented tank.
 import { describe, expect, it } from 'vitest';
+import { refillComparisonLines, simulatePolicies } from '../../bench/accuracy/refill-compare.js';
 import { fixedPolicy, type Policy, plannerPolicy, simulateRefill } from '../../bench/accuracy/refill-sim.js';
 import { buildScenario, type ScenarioSpec } from '../../bench/accuracy/scenarios.js';
 
@@ -44,5 +45,21 @@ describe('refill simulation', () => {
     const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
     expect(mean(planner.levelsAtArrival)).toBeLessThan(mean(fixed.levelsAtArrival));
     expect(planner.deliveries).toBeLessThanOrEqual(fixed.deliveries);
+  });
+
+  it('compares on like terms: where the 30% rule holds, and against the lowest fixed level missing as rarely', () => {
+    // The same tank at half the use (250 L/day): slow enough that the 30% rule never lets it breach.
+    const suite = [buildScenario('north-yard-slow', { ...steady, days: 120, rate: 250 }, 43)];
+    const [planner, fixed30] = simulatePolicies(suite, [plannerPolicy(0.95), fixedPolicy(0.3)]);
+    expect(fixed30!.runs[0]!.breaches).toBe(0); // this slow, steady tank is one the 30% rule handles
+    const lines = refillComparisonLines(suite, planner!, [planner!, fixed30!]);
+    const holds = lines.find((l) => l.includes('never breached'));
+    const matched = lines.find((l) => l.includes('missing no more often'));
+    expect(holds).toContain('| 1 tanks on which');
+    expect(matched).toContain('order below 30%');
+    // planner / fixed deliveries, the last column: never more deliveries on a tank the fixed rule handles
+    const ratio = Number(holds!.match(/\| ([\d.]+)x \|$/)?.[1]);
+    expect(ratio).toBeGreaterThan(0);
+    expect(ratio).toBeLessThanOrEqual(1);
   });
 });
