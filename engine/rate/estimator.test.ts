@@ -229,3 +229,56 @@ describe('analyzeSeries input order', () => {
     expect(sorted.events.filter((e) => e.logged)).toHaveLength(2);
   });
 });
+
+// Patterns that failed on accuracy-bench scenarios generated with other seeds (bench/accuracy, invented tanks).
+describe('shift cases from held-out scenario seeds', () => {
+  it('counts a delivery a 6-hourly reading fell in the middle of as one event', () => {
+    const readings = series({
+      start: 3000,
+      step: 6 * HOUR,
+      days: 20,
+      rate: () => 300,
+      noise: 10,
+      shifts: [
+        { at: 10 * DAY - HOUR, volume: 2500 },
+        { at: 10 * DAY + HOUR, volume: 2500 },
+      ],
+    });
+    const { events } = analyzeSeries(readings, [], { capacity: 10_000 });
+    expect(events.map((e) => e.type)).toEqual(['delivery']);
+    expect(Math.abs(events[0]!.volume - 5000)).toBeLessThan(100);
+  });
+
+  it('counts a spike just before a delivery and the delivery as one event', () => {
+    const readings = series({
+      start: 3000,
+      step: 6 * HOUR,
+      days: 20,
+      rate: () => 300,
+      noise: 10,
+      shifts: [{ at: 10 * DAY + 3 * HOUR, volume: 5000 }],
+    });
+    const spike = readings.findIndex((r) => r.time === 10 * DAY);
+    readings[spike]!.volume += 1500;
+    const { events } = analyzeSeries(readings, [], { capacity: 10_000 });
+    expect(events.map((e) => e.type)).toEqual(['delivery']);
+    expect(Math.abs(events[0]!.volume - 5000)).toBeLessThan(100);
+    expect(Math.abs(events[0]!.start - 10 * DAY)).toBeLessThanOrEqual(6 * HOUR);
+  });
+
+  it('sees no rise while a tank that ran dry reads empty, only the delivery after it', () => {
+    for (const step of [HOUR, 6 * HOUR]) {
+      const readings = series({
+        start: 2000,
+        step,
+        days: 12,
+        rate: () => 500,
+        noise: 5,
+        shifts: [{ at: 7 * DAY + 0.5 * HOUR, volume: 9000 }],
+      }).map((r) => ({ time: r.time, volume: Math.max(0, r.time < 7 * DAY ? r.volume : r.volume + 1500) }));
+      const { events } = analyzeSeries(readings, [], { capacity: 10_000 });
+      expect(events.map((e) => e.type)).toEqual(['delivery']);
+      expect(Math.abs(events[0]!.start - 7 * DAY)).toBeLessThanOrEqual(step);
+    }
+  });
+});

@@ -180,7 +180,10 @@ export class Estimator implements RateEstimator {
       Math.min(RATE_MEMORY_MAX_DAYS, quiet),
     );
     const q = (R * s.dtMean) / memory ** 4;
-    return predict(s, dt, q, this.pr);
+    const pr = predict(s, dt, q, this.pr);
+    // A tank that ran dry stops falling: readings at the bottom are not a rise (a delivery) above the line.
+    if (pr.v < 0) pr.v = 0;
+    return pr;
   }
 
   private threshold(pr: Prediction, R: number): number {
@@ -286,11 +289,19 @@ export class Estimator implements RateEstimator {
   ): void {
     const s = this.s;
     const shift = level - pr.v;
-    const mergeWindow = Math.max(2 * 3_600_000, 2 * s.dtMean * DAY_MS);
+    // A shift with no trusted reading since the previous one continues it (a delivery a reading fell in the
+    // middle of, a spike just before it): one truck is one event at any sampling interval.
+    const last = s.events[s.events.length - 1];
+    const adjoining = last !== undefined && last.end >= s.lastTime!;
+    const mergeWindow = adjoining
+      ? Number.POSITIVE_INFINITY
+      : s.dtMean < DENSE_INTERVAL_DAYS
+        ? Math.max(2 * 3_600_000, 2 * s.dtMean * DAY_MS)
+        : 0;
     pushEvent(
       s.events,
       { type: eventTypeFor(shift, s.filling), start, end, volume: Math.abs(shift), logged },
-      s.dtMean < DENSE_INTERVAL_DAYS ? mergeWindow : 0,
+      mergeWindow,
     );
     reseedVolume(s, pr, level, R);
     s.lastTime = time;
