@@ -282,3 +282,29 @@ describe('shift cases from held-out scenario seeds', () => {
     }
   });
 });
+
+describe('rate range on correlated dense readings', () => {
+  // 300 L/day on average, three quarters of it in working hours (08-17) and a quarter less at weekends, plus
+  // a daily thermal swing: readings minutes apart share these deviations, so more of them are not more news.
+  const weekMean = (5 + 2 * 0.75) / 7;
+  const shaped = (t: number) => {
+    const hour = (t % DAY) / HOUR;
+    const weekend = Math.floor(t / DAY) % 7 >= 5 ? 0.75 : 1;
+    return (300 * (hour >= 8 && hour < 17 ? (0.75 * 24) / 9 : (0.25 * 24) / 15) * weekend) / weekMean;
+  };
+  const coverage = (step: number) => {
+    const readings = series({ start: 9500, step, days: 30, rate: shaped, noise: 50, seed: 3 }).map((r) => ({
+      time: r.time,
+      volume: r.volume + 30 * Math.sin((2 * Math.PI * r.time) / DAY),
+    }));
+    const later = analyzeSeries(readings, [], { capacity: 10_000 }).points.filter((p) => p.time >= 5 * DAY);
+    return later.filter((p) => p.rateLow <= 300 && 300 <= p.rateHigh).length / later.length;
+  };
+
+  it('covers the mean rate at 5-minute sampling about as often as at hourly sampling', () => {
+    const fast = coverage(5 * 60_000);
+    const hourly = coverage(HOUR);
+    expect(fast).toBeGreaterThanOrEqual(0.7);
+    expect(fast).toBeGreaterThanOrEqual(hourly - 0.1);
+  });
+});

@@ -3,7 +3,7 @@
 // arrays, so no object is made per reading there.
 import * as tuning from './tuning.js';
 
-const { DAY_MS, RATE_SIGMA_CORRELATION_DAYS, RATE_SIGMA_PER_OCTAVE, Z80 } = tuning;
+const { DAY_MS, RATE_SIGMA_CORRELATION_DAYS, Z80 } = tuning;
 
 import type { RateEstimatorState, RatePoint } from './types.js';
 
@@ -50,7 +50,7 @@ export function writePoint(
   out: ScratchPoint,
 ): ScratchPoint {
   const perWindow = s.dtMean > 0 ? RATE_SIGMA_CORRELATION_DAYS / s.dtMean : 1;
-  const sigma = Math.sqrt(rateVar) * (1 + RATE_SIGMA_PER_OCTAVE * Math.log2(Math.max(1, perWindow)));
+  const sigma = Math.sqrt(rateVar * Math.max(1, perWindow));
   out.time = time;
   out.volume = volume;
   out.rate = s.r;

@@ -25,12 +25,13 @@ export const MAX_PENDING = 8;
 /** z of a two-sided 80% normal interval (1.2816, standard normal table). */
 export const Z80 = 1.2815515655446004;
 /**
- * The filter treats readings as independent; dense ones are not (thermal swing, working hours), so its rate
- * standard error is widened by 1 + RATE_SIGMA_PER_OCTAVE * log2(readings per RATE_SIGMA_CORRELATION_DAYS),
- * calibrated on the accuracy bench so the ~80% range covers about 80%.
+ * The filter treats readings as independent; dense ones are not (thermal swing, working hours), so readings
+ * closer together than RATE_SIGMA_CORRELATION_DAYS count as one: the effective number of readings is
+ * count * interval / that time, and the rate's standard error is widened by sqrt(that time / interval) (the
+ * usual effective-sample-size correction for correlated data). The time was calibrated on the accuracy bench
+ * over six scenario seeds (pooled), so the ~80% range covers about 80% at every sampling interval.
  */
-export const RATE_SIGMA_PER_OCTAVE = 0.6;
-export const RATE_SIGMA_CORRELATION_DAYS = 0.25;
+export const RATE_SIGMA_CORRELATION_DAYS = 0.375;
 /** A rate change must settle for this long before it is reported. */
 export const CHANGE_SETTLE_DAYS = 1;
 /** Widening of a least-squares refit's covariance after a change (its residuals are not independent). */
