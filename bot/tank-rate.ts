@@ -31,8 +31,24 @@ export interface Series {
 const geometries = new Map<string, ReturnType<typeof buildTank>>();
 const GEOMETRY_CACHE_SIZE = 512;
 
+/**
+ * A spec's JSON text, kept per frozen spec object (the store shares one between the tanks that repeat it;
+ * an object that can still change is stringified each time).
+ */
+const specTexts = new WeakMap<object, string>();
+
+function specText(spec: unknown): string | undefined {
+  if (typeof spec !== 'object' || spec === null || !Object.isFrozen(spec)) return JSON.stringify(spec);
+  let text = specTexts.get(spec);
+  if (text === undefined) {
+    text = JSON.stringify(spec);
+    specTexts.set(spec, text);
+  }
+  return text;
+}
+
 export function geometryOf(spec: unknown): ReturnType<typeof buildTank> {
-  const key = JSON.stringify(spec);
+  const key = specText(spec) ?? 'undefined';
   let built = geometries.get(key);
   if (!built) {
     built = buildTank(spec);
@@ -85,7 +101,8 @@ export function rateOf(
   /** Where the reads come from: the store one query at a time, or a team's prefetch (the same answers). */
   reads: TankReads = storeReads(store, teamId),
 ): RateResult {
-  const specKey = JSON.stringify([tank.spec, filling]);
+  // JSON.stringify([tank.spec, filling]), without stringifying a shared spec again.
+  const specKey = `[${specText(tank.spec) ?? 'null'},${filling}]`;
   const cached = reads.rateCache(tank.id);
   // A cache from another engine version, or for another shape, is not used.
   const cache =

@@ -1,7 +1,9 @@
 import { runwayTo } from '../engine/forecast/runway.js';
 import type { Tank as TankGeometry } from '../engine/geometry/index.js';
 import type { RatePoint, TankEventType } from '../engine/rate/index.js';
-import { mapPlanVolumes, planRefill, type RefillPlan } from '../engine/refill/planRefill.js';
+import { mapPlanVolumes, planRefillWith, type RefillPlan } from '../engine/refill/planRefill.js';
+import { parseRefillSettings, type RefillSettings } from '../engine/refill/settings.js';
+import type { Result } from '../engine/result.js';
 import { fromLitres, fromMetres } from '../engine/units/index.js';
 import { readingLevelMetres } from './reading-volume.js';
 import type { Store } from './store/index.js';
@@ -208,8 +210,11 @@ export function tankStatus(
     status.runway = runwayFrom(trusted, geometry.capacity, safeFillLitres, threshold, filling, now, show);
     const timeZone = options.known?.timeZone ?? store.teams.get(teamId)?.timeZone ?? 'UTC';
     const plan = refillPlan(tank, trusted, geometry.capacity, filling, Math.max(now, trusted.time), timeZone);
-    if (plan.ok) status.refill = mapPlanVolumes(plan.value, show);
-    else status.refillProblem = plan.error;
+    if (plan.ok) {
+      status.refill = Object.assign(mapPlanVolumes(plan.value, show), {
+        thresholdIsDefault: !tank.settings.threshold,
+      });
+    } else status.refillProblem = plan.error;
   }
   return status;
 }
@@ -235,6 +240,33 @@ function withLaterDeliveries(
 /** Thresholds when a tank has none of its own: order at 20% of capacity, or book a pick-up before the safe fill. */
 const DEFAULT_THRESHOLD_PERCENT = 20;
 
+/**
+ * A tank's refill settings validated, with the default threshold and the team's zone filled in; kept per
+ * settings object and zone (the store shares one frozen object between tanks with the same settings), since
+ * validating took longer than planning.
+ */
+const checkedSettings = new WeakMap<object, Map<string, Result<RefillSettings>>>();
+
+function refillSettingsOf(tank: Tank, filling: boolean, timeZone: string): Result<RefillSettings> {
+  const shared = Object.isFrozen(tank.settings);
+  let byZone = shared ? checkedSettings.get(tank.settings) : undefined;
+  const known = byZone?.get(timeZone);
+  if (known) return known;
+  const { filling: _filling, ...settings } = tank.settings;
+  const threshold = settings.threshold ?? {
+    percent: filling ? (settings.safeFillPercent ?? DEFAULT_SAFE_FILL_PERCENT) : DEFAULT_THRESHOLD_PERCENT,
+  };
+  const checked = parseRefillSettings({ ...settings, threshold, timeZone });
+  if (shared) {
+    if (!byZone) {
+      byZone = new Map();
+      checkedSettings.set(tank.settings, byZone);
+    }
+    byZone.set(timeZone, checked);
+  }
+  return checked;
+}
+
 function refillPlan(
   tank: Tank,
   point: RatePoint,
@@ -242,24 +274,21 @@ function refillPlan(
   filling: boolean,
   now: number,
   timeZone: string,
-) {
-  const { filling: _filling, ...settings } = tank.settings;
-  const threshold = settings.threshold ?? {
-    percent: filling ? (settings.safeFillPercent ?? DEFAULT_SAFE_FILL_PERCENT) : DEFAULT_THRESHOLD_PERCENT,
-  };
-  const plan = planRefill({
-    now,
-    volume: point.volume,
-    lastReadingAt: point.time,
-    rate: point.rate,
-    rateSigma: point.rateSigma,
-    capacity,
-    filling,
-    settings: { ...settings, threshold, timeZone },
-  });
-  return plan.ok
-    ? { ok: true as const, value: { ...plan.value, thresholdIsDefault: !settings.threshold } }
-    : plan;
+): Result<RefillPlan> {
+  const settings = refillSettingsOf(tank, filling, timeZone);
+  if (!settings.ok) return settings;
+  return planRefillWith(
+    {
+      now,
+      volume: point.volume,
+      lastReadingAt: point.time,
+      rate: point.rate,
+      rateSigma: point.rateSigma,
+      capacity,
+      filling,
+    },
+    settings.value,
+  );
 }
 
 /**

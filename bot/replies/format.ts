@@ -3,6 +3,9 @@
  * "12.4 gal/day (10.9-13.8)" and "in 9 days, Thu 10 Dec" the same way. Pure: `now` is an argument.
  */
 import { DateTime } from 'luxon';
+import { civilDay } from '../../engine/refill/civilDay.js';
+
+const DAY_MS = 86_400_000;
 
 /** A central estimate with an optional range (e.g. the ~80% range of a rate or a runway). */
 export interface Estimate {
@@ -138,8 +141,29 @@ function inZone(time: number, timeZone: string): { dt: DateTime; note: string } 
   return { dt: DateTime.fromMillis(time, { zone: 'UTC' }), note: ' UTC' };
 }
 
+/** The texts of `formatDate` by local date and whether it is in the year of `now`: luxon's formatting was a
+ * large part of composing a digest, whose rows show a handful of dates again and again. */
+const dateTexts = new Map<string, string>();
+const DATE_TEXTS_SIZE = 4096;
+const yearOf = (day: number) => new Date(day * DAY_MS).getUTCFullYear();
+
 /** "Thu 10 Dec" (adds the year when it is not the year of `now`). */
 export function formatDate(time: number, timeZone: string, now = time): string {
+  // civilDay is luxon's local date (NaN for an unknown zone or instant, which luxon's path below words).
+  const day = civilDay(time, timeZone);
+  const today = civilDay(now, timeZone);
+  if (!Number.isFinite(day) || !Number.isFinite(today)) return formatDateLuxon(time, timeZone, now);
+  const key = `${day}|${yearOf(day) === yearOf(today)}`;
+  let text = dateTexts.get(key);
+  if (text === undefined) {
+    text = formatDateLuxon(time, timeZone, now);
+    if (dateTexts.size >= DATE_TEXTS_SIZE) dateTexts.clear();
+    dateTexts.set(key, text);
+  }
+  return text;
+}
+
+function formatDateLuxon(time: number, timeZone: string, now: number): string {
   const { dt, note } = inZone(time, timeZone);
   const { dt: today } = inZone(now, timeZone);
   const pattern = dt.year === today.year ? 'ccc d LLL' : 'ccc d LLL yyyy';
@@ -164,7 +188,7 @@ export function calendarDaysBetween(now: number, time: number, timeZone: string)
   } catch {
     // luxon's diff overflows there even between two valid dates; the fallback below answers.
   }
-  return Number.isFinite(days) ? days : Math.round((time - now) / 86_400_000);
+  return Number.isFinite(days) ? days : Math.round((time - now) / DAY_MS);
 }
 
 /**

@@ -52,13 +52,27 @@ function actionWord(status: TankStatus, now: number, zone: string, endOfDay: num
   return plan.orderBy === null ? '' : `${verb} by ${formatDate(plan.orderBy, zone, now)}`;
 }
 
+/** The last few answers by zone and instant: a scheduler tick composes every due team's digest at one `now`. */
+const endsOfDay = new Map<string, number>();
+
 export function endOfLocalDay(now: number, zone: string): number {
-  return DateTime.fromMillis(now, { zone }).endOf('day').toMillis();
+  const key = `${zone}|${now}`;
+  let end = endsOfDay.get(key);
+  if (end === undefined) {
+    end = DateTime.fromMillis(now, { zone }).endOf('day').toMillis();
+    if (endsOfDay.size >= 64) endsOfDay.clear();
+    endsOfDay.set(key, end);
+  }
+  return end;
 }
 
 /** Tanks whose plan says order (or book a pick-up) today: the order is due now or before midnight local. */
-export function dueToday(statuses: readonly TankStatus[], now: number, zone: string): TankStatus[] {
-  const end = endOfLocalDay(now, zone);
+export function dueToday(
+  statuses: readonly TankStatus[],
+  now: number,
+  zone: string,
+  end = endOfLocalDay(now, zone),
+): TankStatus[] {
   return statuses.filter((s) => {
     const plan = s.refill;
     return (

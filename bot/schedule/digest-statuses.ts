@@ -18,9 +18,13 @@ function statusesOf(store: Store, teamId: string, now: number): TankStatus[] {
   const timeZone = store.teams.get(teamId)?.timeZone ?? 'UTC';
   const tanks = store.tanks.list(teamId);
   const ids = tanks.map((t) => t.id);
-  // The team's reads in five set-based queries, not five per tank.
-  const reads = teamReads(store, teamId, DIGEST_HISTORY_READINGS, (caches, latest) =>
-    deliveriesAskedFrom(ids, caches, latest, now),
+  // The team's reads in a few set-based queries, not five per tank.
+  const reads = teamReads(
+    store,
+    teamId,
+    DIGEST_HISTORY_READINGS,
+    (caches, latest) => deliveriesAskedFrom(ids, caches, latest, now),
+    ids,
   );
   for (const tank of tanks) {
     const options = { historyLimit: DIGEST_HISTORY_READINGS, known: { tank, timeZone, reads } };

@@ -132,7 +132,7 @@ function cautionsFor(input: DigestInput, due: readonly TankStatus[]): string | u
 export function composeDigest(input: DigestInput): Reply {
   const zone = input.timeZone;
   const endOfDay = endOfLocalDay(input.now, zone);
-  const due = dueToday(input.statuses, input.now, zone);
+  const due = dueToday(input.statuses, input.now, zone, endOfDay); // the zone's arithmetic once a team
   const sorted = byRunway(input.statuses);
   const orders = siteOrders(input.statuses, input.now, endOfDay);
   const sections: Sections = {
@@ -155,12 +155,12 @@ export function composeDigest(input: DigestInput): Reply {
     [1, 1],
     [0, 0],
   ];
-  let reply = build(input, sections, caution, endOfDay, MOST_ROWS, 6);
+  let reply: Reply | undefined;
   for (const [rows, items] of steps) {
     reply = build(input, sections, caution, endOfDay, rows, items);
     if (toPlainText(reply).length <= DIGEST_MAX_CHARS) return reply;
   }
-  return reply;
+  return reply!;
 }
 
 /** The digest of a team from the store: every live tank's status at `now`. */

@@ -17,12 +17,11 @@ import type { TankStatus } from '../tank-status.js';
 export const SHARED_DELIVERY_WINDOW_DAYS = 3;
 
 function inLitres(plan: RefillPlan, unit: VolumeUnit, now: number): RefillPlan {
-  return {
-    ...mapPlanVolumes(plan, (v) => toLitres(v, unit)),
-    // An order already overdue is placed now: grouping by a past order-by would split tanks that all go
-    // on today's delivery.
-    orderBy: plan.orderBy === null ? null : Math.max(plan.orderBy, now),
-  };
+  const litres = mapPlanVolumes(plan, (v) => toLitres(v, unit));
+  // An order already overdue is placed now: grouping by a past order-by would split tanks that all go
+  // on today's delivery.
+  litres.orderBy = plan.orderBy === null ? null : Math.max(plan.orderBy, now);
+  return litres;
 }
 
 /**

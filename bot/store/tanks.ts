@@ -33,6 +33,33 @@ export interface TanksRepo {
   remove(teamId: string, id: number, at: number): boolean;
 }
 
+/**
+ * Parsed spec and settings columns by their text, frozen and shared between the tanks that repeat them: a
+ * digest reads every tank of every team, and the figures cache what they derive from these (built shape,
+ * validated refill settings) by the object.
+ */
+const sharedColumns = new Map<string, unknown>();
+const SHARED_COLUMNS_SIZE = 4096;
+
+function deepFreeze<T>(value: T): T {
+  if (typeof value === 'object' && value !== null && !Object.isFrozen(value)) {
+    for (const inner of Object.values(value)) deepFreeze(inner);
+    Object.freeze(value);
+  }
+  return value;
+}
+
+function sharedColumn<T>(text: string, fallback: T): T {
+  const known = sharedColumns.get(text);
+  if (known !== undefined) return known as T;
+  const parsed = parseJsonColumn<T | undefined>(text, undefined);
+  // A column that does not parse gets the caller's fallback, which is not shared.
+  if (parsed === undefined) return fallback;
+  if (sharedColumns.size >= SHARED_COLUMNS_SIZE) sharedColumns.clear();
+  sharedColumns.set(text, deepFreeze(parsed));
+  return parsed;
+}
+
 const toTank = (r: TankDbRow): Tank => ({
   teamId: r.team_id,
   id: r.id,
@@ -40,8 +67,8 @@ const toTank = (r: TankDbRow): Tank => ({
   name: r.name,
   site: r.site,
   product: r.product,
-  spec: parseJsonColumn<unknown>(r.spec, null),
-  settings: parseJsonColumn<TankSettings>(r.settings, {}),
+  spec: sharedColumn<unknown>(r.spec, null),
+  settings: sharedColumn<TankSettings>(r.settings, {}),
   createdBy: r.created_by,
   createdAt: r.created_at,
   updatedAt: r.updated_at,

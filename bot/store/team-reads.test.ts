@@ -46,7 +46,9 @@ describe('teamReads', () => {
           minLength: 1,
           maxLength: 6,
         }),
-        (rows, deliveries, caches, questions) => {
+        // The tanks the caller says it will ask about (the digest: the live ones), or none said.
+        fc.option(fc.subarray([0, 1, 2, 3])),
+        (rows, deliveries, caches, questions, asked) => {
           const team = `${TEAM}-${n++}`;
           store.teams.ensure(team, NOW - 300 * DAY, { name: 'Kestrel Valley Water Co-op', timeZone: 'UTC' });
           const tanks = [0, 1, 2, 3].map(
@@ -78,7 +80,8 @@ describe('teamReads', () => {
           const direct = storeReads(store, team);
           const sinceOf = (id: number) => direct.rateCache(id)?.asOfTime ?? Number.MIN_SAFE_INTEGER;
           const [firstDay] = questions[0]!;
-          const prefetched = teamReads(store, team, 11, () => at(firstDay));
+          const askedIds = asked?.map((i) => tanks[i]!);
+          const prefetched = teamReads(store, team, 11, () => at(firstDay), askedIds);
           for (const id of tanks) {
             expect(prefetched.rateCache(id)).toEqual(direct.rateCache(id));
             expect(prefetched.latest(id)).toEqual(direct.latest(id));

@@ -128,7 +128,9 @@ interface Newest {
  * A team's reads prefetched: every rate-cache row, the readings after each, the newest readings of every tank
  * (from its summary and the readings after it, or `newestLimit` of them read for tanks without one) and the
  * deliveries from `deliveriesFrom(caches, latest)` (the earliest instant any tank will ask about). Call it
- * inside the transaction the statuses are read in.
+ * inside the transaction the statuses are read in. Given `tankIds`, the tanks the caller will ask about, the
+ * two queries for tanks without a summary run only when one of those has none (the usual morning: all have
+ * one); another tank's newest readings are then asked of the store.
  */
 export function teamReads(
   store: Store,
@@ -138,6 +140,7 @@ export function teamReads(
     caches: ReadonlyMap<number, RateCacheEntry>,
     latest: ReadonlyMap<number, Reading>,
   ) => number,
+  tankIds?: readonly number[],
 ): TankReads {
   let s = statements.get(store.db);
   if (!s) {
@@ -167,10 +170,17 @@ export function teamReads(
     const whole = last ? toReading(last) : kept;
     if (whole) latest.set(tankId, whole);
   }
-  for (const [tankId, rows] of groupBy(s.newest.all({ team: teamId, limit: newestLimit }).map(seriesRowOf))) {
-    newest.set(tankId, { rows: rows.map(seriesOfRow), complete: rows.length < newestLimit });
+  // Every tank without a summary is in these two queries' answers (those with no readings as none).
+  const unsummarizedRead = tankIds === undefined || tankIds.some((id) => !caches.has(id));
+  if (unsummarizedRead) {
+    const rows = s.newest.all({ team: teamId, limit: newestLimit }).map(seriesRowOf);
+    for (const [tankId, tankRows] of groupBy(rows)) {
+      newest.set(tankId, { rows: tankRows.map(seriesOfRow), complete: tankRows.length < newestLimit });
+    }
+    for (const row of s.latest.all({ team: teamId })) latest.set(row.tank_id, toReading(row));
   }
-  for (const row of s.latest.all({ team: teamId })) latest.set(row.tank_id, toReading(row));
+  // A tank the prefetch does not answer for: a damaged summary, or none when the queries above were skipped.
+  const unknown = (tankId: number) => !caches.has(tankId) && (summarized.has(tankId) || !unsummarizedRead);
   const from = deliveriesFrom(caches, latest);
   const deliveries = groupBy(s.deliveries.all(teamId, from));
 
@@ -182,18 +192,17 @@ export function teamReads(
       return (sinceCache.get(tankId) ?? []).map(seriesOfRow);
     },
     recentSeries: (tankId, since, limit) => {
-      // A tank with a damaged summary was in neither prefetch.
-      if (summarized.has(tankId) && !caches.has(tankId)) return fallback.recentSeries(tankId, since, limit);
+      if (unknown(tankId)) return fallback.recentSeries(tankId, since, limit);
       const known = newest.get(tankId) ?? { rows: [], complete: true };
       // Newest first, so those after `since` are a prefix of the newest: the query's answer, reversed.
       const rows = known.rows.filter((r) => r.time > since).slice(0, limit);
       if (rows.length < limit && !known.complete && rows.length === known.rows.length) {
         return fallback.recentSeries(tankId, since, limit);
       }
-      return rows.reverse().map(seriesOfRow);
+      // The rows are this prefetch's own copies (of the summary, or of the query's rows): no copy again.
+      return rows.reverse();
     },
-    latest: (tankId) =>
-      summarized.has(tankId) && !caches.has(tankId) ? fallback.latest(tankId) : latest.get(tankId),
+    latest: (tankId) => (unknown(tankId) ? fallback.latest(tankId) : latest.get(tankId)),
     deliveries: (tankId, since) => {
       if (since < from) return fallback.deliveries(tankId, since);
       return (deliveries.get(tankId) ?? []).filter((d) => d.time >= since).map(toDelivery);

@@ -74,9 +74,18 @@ export interface PlanSizing {
 }
 
 export function planRefill(input: RefillInput): Result<RefillPlan> {
-  const settingsResult = parseRefillSettings(input.settings);
-  if (!settingsResult.ok) return settingsResult;
-  const settings = settingsResult.value;
+  const settings = parseRefillSettings(input.settings);
+  return settings.ok ? planRefillWith(input, settings.value) : settings;
+}
+
+/**
+ * `planRefill` with settings already validated (`parseRefillSettings`): a caller planning many tanks that
+ * share their settings validates each distinct one once.
+ */
+export function planRefillWith(
+  input: Omit<RefillInput, 'settings'>,
+  settings: RefillSettings,
+): Result<RefillPlan> {
   const checked = checkInput(input);
   if (!checked.ok) return checked;
   const { capacity, volume } = checked.value;
@@ -148,7 +157,9 @@ export function planRefill(input: RefillInput): Result<RefillPlan> {
   });
 }
 
-function checkInput(input: RefillInput): Result<{ capacity: number | undefined; volume: number }> {
+function checkInput(
+  input: Omit<RefillInput, 'settings'>,
+): Result<{ capacity: number | undefined; volume: number }> {
   const finite = (x: unknown) => typeof x === 'number' && Number.isFinite(x);
   for (const key of ['now', 'volume', 'lastReadingAt', 'rate', 'rateSigma'] as const) {
     if (!finite(input[key]))
@@ -211,16 +222,24 @@ const round = (x: number) => Math.round(x * 10) / 10;
 
 /**
  * The plan with every volume passed through `convert` (litres to a display unit, or back); dates, the verdict
- * and `sizing` (kept in litres for site consolidation) are left as they are.
+ * and `sizing` (kept in litres for site consolidation) are left as they are. A new plan of these fields only,
+ * written out: a digest maps every tank's plan twice, and spreading the plan was a measurable part of it.
  */
-export function mapPlanVolumes<P extends RefillPlan>(plan: P, convert: (volume: number) => number): P {
+export function mapPlanVolumes(plan: RefillPlan, convert: (volume: number) => number): RefillPlan {
   return {
-    ...plan,
+    verdict: plan.verdict,
+    mode: plan.mode,
+    orderBy: plan.orderBy,
+    deliveryBy: plan.deliveryBy,
+    thresholdAt: plan.thresholdAt,
+    earliestDelivery: plan.earliestDelivery,
     quantity: plan.quantity === null ? null : convert(plan.quantity),
+    quantityIssue: plan.quantityIssue,
     expectedVolumeOnArrival: convert(plan.expectedVolumeOnArrival),
     reorderPoint: convert(plan.reorderPoint),
     safetyStock: convert(plan.safetyStock),
     thresholdVolume: convert(plan.thresholdVolume),
     safeFillVolume: plan.safeFillVolume === null ? null : convert(plan.safeFillVolume),
+    sizing: plan.sizing,
   };
 }
