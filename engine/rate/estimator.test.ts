@@ -266,6 +266,20 @@ describe('shift cases from held-out scenario seeds', () => {
     expect(Math.abs(events[0]!.start - 10 * DAY)).toBeLessThanOrEqual(6 * HOUR);
   });
 
+  it('takes a delivery inside the first interval of twice-weekly dips as a delivery, not a filling rate', () => {
+    const readings = series({
+      start: 6000,
+      step: 3.5 * DAY,
+      days: 40,
+      rate: () => 900,
+      shifts: [{ at: 1.5 * DAY, volume: 12_000 }],
+    });
+    const { events, points } = analyzeSeries(readings, [], { capacity: 20_000 });
+    expect(events.map((e) => e.type)).toEqual(['delivery']);
+    for (const p of points.slice(3)) expect(p.rate).toBeGreaterThan(0);
+    expect(Math.abs(points[points.length - 1]!.rate - 900) / 900).toBeLessThan(0.05);
+  });
+
   it('sees no rise while a tank that ran dry reads empty, only the delivery after it', () => {
     for (const step of [HOUR, 6 * HOUR]) {
       const readings = series({

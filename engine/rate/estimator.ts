@@ -89,7 +89,7 @@ export class Estimator implements RateEstimator {
     const R = noiseVar(s);
     let pr = this.predictTo(time, R);
     let e = volume - pr.v;
-    let deviant = Math.abs(e) > this.threshold(pr, R);
+    let deviant = Math.abs(e) > this.threshold(pr, R) || this.beyondAnyUse(volume, R);
 
     if (s.undo) {
       const undo = s.undo;
@@ -189,6 +189,19 @@ export class Estimator implements RateEstimator {
   private threshold(pr: Prediction, R: number): number {
     const s = this.s;
     return Math.max(EVENT_Z * Math.sqrt(pr.p00 + R), EVENT_MIN_FRACTION * (s.capacity ?? s.scale));
+  }
+
+  /**
+   * Use never fills a tank (nor empties a filling one): on sparse readings, one reading that far beyond the
+   * last level in the refill direction is a delivery (pick-up) whatever the rate. The usual test misses it
+   * while the rate is unsure (the second reading, a refit after a change), and one interval of days would
+   * then teach the filter a negative rate. Dense series never learn their rate from one interval.
+   */
+  private beyondAnyUse(volume: number, R: number): boolean {
+    const s = this.s;
+    if (s.dtMean < DENSE_INTERVAL_DAYS) return false;
+    const rise = s.filling ? s.v - volume : volume - s.v;
+    return rise > Math.max(EVENT_Z * Math.sqrt(s.p00 + R), EVENT_MIN_FRACTION * (s.capacity ?? s.scale));
   }
 
   private filterUpdate(time: number, volume: number, e: number, pr: Prediction, R: number): void {
