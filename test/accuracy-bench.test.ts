@@ -2,7 +2,7 @@
 // tolerance, and the generator's truth agrees with its readings.
 import { describe, expect, it } from 'vitest';
 import { leastSquaresBaseline } from '../bench/accuracy/baselines.js';
-import { median, scenarioMetrics } from '../bench/accuracy/metrics.js';
+import { median, scenarioMetrics, startTolerance } from '../bench/accuracy/metrics.js';
 import { accuracySuite } from '../bench/accuracy/suite.js';
 
 const DAY = 86_400_000;
@@ -48,5 +48,23 @@ describe('metrics and scenarios', () => {
     const s = scenario!;
     const errors = s.readings.map((r) => Math.abs(r.volume - s.truth.volumeAt(r.time)) / s.capacity);
     expect(median(errors)).toBeLessThan(0.02);
+  });
+});
+
+describe('event start tolerance', () => {
+  const HOUR = 3_600_000;
+  const delivery = { type: 'delivery' as const, start: 10 * DAY, end: 10 * DAY + HOUR, volume: 5000 };
+
+  it('is the usual one where readings are near the event', () => {
+    const hourly = Array.from({ length: 24 * 20 }, (_, i) => i * HOUR);
+    expect(startTolerance(hourly, delivery, 2 * HOUR)).toBe(2 * HOUR);
+  });
+
+  it('is half the gap around an event inside an outage, where no method can place it closer', () => {
+    // Hourly readings with none from day 8 to day 12: the delivery at day 10 shows only as a step between.
+    const times = Array.from({ length: 24 * 20 }, (_, i) => i * HOUR).filter(
+      (t) => t <= 8 * DAY || t >= 12 * DAY,
+    );
+    expect(startTolerance(times, delivery, 2 * HOUR)).toBe(2 * DAY);
   });
 });

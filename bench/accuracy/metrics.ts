@@ -1,5 +1,6 @@
 // Accuracy metrics of one method on one scenario, and their roll-up per family (definitions in the issue:
-// event precision/recall/F1 with a start tolerance of max(2 sampling intervals, 2 h); rate and runway median
+// event precision/recall/F1 with a start tolerance of max(2 sampling intervals, 2 h, half the reading gap around
+// the event); rate and runway median
 // absolute % error on steady points; adaptation lag; coverage of the ~80% ranges).
 import { runwayTo } from '../../engine/forecast/runway.js';
 import type { Scenario, TruthEvent, TruthEventType } from './scenarios.js';
@@ -45,15 +46,40 @@ export interface ScenarioMetrics {
   dayUseLags: number[];
 }
 
+/**
+ * The start tolerance of one true event: the usual one, or half the gap between the readings around the event
+ * when that is longer (an event inside a sensor outage can only be placed somewhere between them).
+ */
+export function startTolerance(
+  readingTimes: readonly number[],
+  event: TruthEvent,
+  toleranceMs: number,
+): number {
+  let lo = 0;
+  let hi = readingTimes.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (readingTimes[mid]! <= event.start) lo = mid + 1;
+    else hi = mid;
+  }
+  const before = readingTimes[lo - 1];
+  let next = lo;
+  while (next < readingTimes.length && readingTimes[next]! < event.end) next++;
+  const after = readingTimes[next];
+  if (before === undefined || after === undefined) return toleranceMs;
+  return Math.max(toleranceMs, (after - before) / 2);
+}
+
 function matchEvents(
   truth: TruthEvent[],
   found: MethodEvent[],
-  toleranceMs: number,
+  toleranceOf: (event: TruthEvent) => number,
   volumeErrors: number[],
 ): Counts {
   const used = new Set<number>();
   let tp = 0;
   for (const t of truth) {
+    const toleranceMs = toleranceOf(t);
     let best = -1;
     let bestGap = Number.POSITIVE_INFINITY;
     found.forEach((f, i) => {
@@ -91,8 +117,10 @@ export function scenarioMetrics(scenario: Scenario, result: MethodResult): Scena
   });
   const r = of(refillType);
   const w = of('withdrawal');
-  const refill = matchEvents(r.truth, r.found, tolerance, eventVolumeErrors);
-  const withdrawal = matchEvents(w.truth, w.found, tolerance, eventVolumeErrors);
+  const times = scenario.readings.map((x) => x.time);
+  const toleranceOf = (e: TruthEvent) => startTolerance(times, e, tolerance);
+  const refill = matchEvents(r.truth, r.found, toleranceOf, eventVolumeErrors);
+  const withdrawal = matchEvents(w.truth, w.found, toleranceOf, eventVolumeErrors);
 
   const start = scenario.readings[0]?.time ?? 0;
   const target = scenario.filling ? scenario.capacity : 0;
