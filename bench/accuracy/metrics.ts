@@ -1,7 +1,7 @@
 // Accuracy metrics of one method on one scenario, and their roll-up per family (definitions in the issue:
 // event precision/recall/F1 with a start tolerance of max(2 sampling intervals, 2 h, half the reading gap around
-// the event); rate and runway median
-// absolute % error on steady points; adaptation lag; coverage of the ~80% ranges).
+// the event); rate and runway median absolute % error on steady points; adaptation lag; coverage of the ~80%
+// ranges).
 import { runwayTo } from '../../engine/forecast/runway.js';
 import type { Scenario, TruthEvent, TruthEventType } from './scenarios.js';
 

@@ -4,7 +4,9 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { machineNote } from '../harness.js';
 import { evaluate, type FamilyResult, METHODS, runMethod } from './evaluate.js';
+import { metText } from './goals.js';
 import { type FamilySummary, median } from './metrics.js';
+import { CHECK_SEEDS, otherSeedsTable, seedRow, TUNING_SEEDS } from './other-seeds.js';
 import { lineChartPng, thin } from './plot.js';
 import { backtestRainwater } from './real.js';
 import { refillSimMarkdown, runRefillSimulation } from './refill-sim-report.js';
@@ -145,6 +147,7 @@ const results = evaluate(suite);
 const heldOut = evaluate(
   accuracySuite({ dense: HELD_OUT_DENSE, manual: 0, filling: 0, hard: 0 }, HELD_OUT_SEED),
 ).find((r) => r.family === 'dense');
+const otherSeeds = [...TUNING_SEEDS, ...CHECK_SEEDS].map(seedRow);
 const real = backtestRainwater(`${root}../shared/data/real`);
 const images = await plots(suite);
 const seconds = (performance.now() - started) / 1000;
@@ -157,9 +160,10 @@ const md: string[] = [
   '',
   'Definitions: an event is found when a detected event of the same type starts within max(2 sampling',
   'intervals, 2 h) of the true start, or within half the gap between the readings around it when that is',
-  'longer (an event inside a sensor outage can only be placed between them). Steady points are 2 days past the start and past a rate change and',
-  'from 1 h before to 12 h after any event are left out. The true rate is the regime rate (the weekly mean,',
-  'before working-hour and weekday shaping). The true runway is the true volume over the true rate (to empty;',
+  'longer (an event inside a sensor outage can only be placed between them). Steady points are 2 days past',
+  'the start and past a rate change and from 1 h before to 12 h after any event are left out. The true rate',
+  'is the regime rate (the weekly mean, before working-hour and weekday shaping). The true runway is the true',
+  'volume over the true rate (to empty;',
   'to full on filling tanks). Adaptation lag: hours after a change until the rate is within 20% and stays',
   'there a day. Baselines, computed in the same run: the least-squares slope of the raw readings over the last',
   '7 days, and the same after removing rises larger than 5% of capacity (drops on filling tanks).',
@@ -207,21 +211,36 @@ if (dense && manual) {
   md.push(
     '| goal | measured | met |',
     '|---|---|---|',
-    `| dense delivery F1 >= 0.97 | ${num(e.refillF1)} | ${e.refillF1 >= 0.97 ? 'yes' : 'no'} |`,
-    `| dense withdrawal F1 >= 0.90 | ${num(e.withdrawalF1)} | ${e.withdrawalF1 >= 0.9 ? 'yes' : 'no'} |`,
-    `| dense rate error <= 5% | ${pct(e.rateError)} | ${e.rateError <= 0.05 ? 'yes' : 'no'} |`,
-    `| dense runway error <= 6% | ${pct(e.runwayError)} | ${e.runwayError <= 0.06 ? 'yes' : 'no'} |`,
+    `| dense delivery F1 >= 0.97 | ${num(e.refillF1)} | ${metText('dense', 'refillF1', e.refillF1)} |`,
+    `| dense withdrawal F1 >= 0.90 | ${num(e.withdrawalF1)} | ${metText('dense', 'withdrawalF1', e.withdrawalF1)} |`,
+    `| dense rate error <= 5% | ${pct(e.rateError)} | ${metText('dense', 'rateError', e.rateError)} |`,
+    `| dense runway error <= 6% | ${pct(e.runwayError)} | ${metText('dense', 'runwayError', e.runwayError)} |`,
     `| dense lag <= 24 h at hourly sampling (median) | ${num(hourlyLag, 1)} h | ${hourlyLag <= 24 ? 'yes' : 'no'} |`,
     `| (dense lag, median over all sampling rates) | ${num(e.lagMedianHours, 1)} h | |`,
     `| (check: dense lag at hourly sampling against the day's use) | ${num(hourlyDayUseLag, 1)} h | |`,
     `| (held-out seed ${HELD_OUT_SEED}: dense lag at hourly sampling, median) | ${heldOut ? num(hourlyLagOf(heldOut), 1) : 'n/a'} h | ${heldOut ? (hourlyLagOf(heldOut) <= 24 ? 'yes' : 'no') : ''} |`,
-    `| manual delivery F1 >= 0.95 | ${num(m.refillF1)} | ${m.refillF1 >= 0.95 ? 'yes' : 'no'} |`,
-    `| manual rate error <= 10% | ${pct(m.rateError)} | ${m.rateError <= 0.1 ? 'yes' : 'no'} |`,
-    `| range coverage 70-90% (dense rate / manual rate) | ${pct(e.rateCoverage)} / ${pct(m.rateCoverage)} | ${[e.rateCoverage, m.rateCoverage].every((c) => c >= 0.7 && c <= 0.9) ? 'yes' : 'no'} |`,
+    `| manual delivery F1 >= 0.95 | ${num(m.refillF1)} | ${metText('manual', 'refillF1', m.refillF1)} |`,
+    `| manual rate error <= 10% | ${pct(m.rateError)} | ${metText('manual', 'rateError', m.rateError)} |`,
+    `| range coverage 70-90% (dense rate / manual rate) | ${pct(e.rateCoverage)} / ${pct(m.rateCoverage)} | ${metText('dense', 'rateCoverage', e.rateCoverage) === 'yes' && metText('manual', 'rateCoverage', m.rateCoverage) === 'yes' ? 'yes' : 'no'} |`,
     `| rate error <= 1/3 of the better baseline (dense / manual) | ${ratio(e.rateError, better(dense))} / ${ratio(m.rateError, better(manual))} | ${e.rateError <= better(dense) / 3 && m.rateError <= better(manual) / 3 ? 'yes' : 'no'} |`,
     '',
   );
 }
+const mainDense = results.find((r) => r.family === 'dense')?.byMethod.estimator;
+const mainManual = results.find((r) => r.family === 'manual')?.byMethod.estimator;
+md.push(
+  '## Other seeds',
+  '',
+  'The dense and manual families (24 scenarios each) generated again with other seeds, estimator only, judged',
+  `by the goals above. Seeds ${TUNING_SEEDS.join(', ')} were looked at (pooled) while fixing the estimator;`,
+  `seeds ${CHECK_SEEDS.join(', ')} only to check it. The lag goal is left out here (see the held-out section).`,
+  '',
+  otherSeedsTable([
+    ...(mainDense && mainManual ? [{ seed: 'main', dense: mainDense, manual: mainManual }] : []),
+    ...otherSeeds,
+  ]),
+  '',
+);
 md.push('## Backtest on a real series', '');
 if (real) {
   md.push(
