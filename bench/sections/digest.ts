@@ -1,7 +1,7 @@
 // Building the morning digests of a large store: N teams x 50 tanks, 30 days of daily readings each
 // (invented demo data), every team's tank statuses computed as the scheduler does (digestStatuses: one store
 // transaction per team, tankStatus per tank) and each team's digest composed and
-// fitted. Baselines in the same run: the raw store scan alone (every team's tanks, readings and deliveries
+// fitted (cold: the first compose of the process; warm: the next one). Baselines in the same run: the raw store scan alone (every team's tanks, readings and deliveries
 // read from SQLite, nothing computed), per tank (two queries a tank, the ratio the rows use) and set-based (two
 // queries a team, as digestStatuses now reads); and the statuses read per tank (tankStatus asking the store,
 // as before the team prefetch) for before/after. Goal from the issue: all digests in under 2 s.
@@ -20,7 +20,7 @@ const NOW = Date.parse('2026-12-02T13:00:00Z');
 const drum = { units: { length: 'in', volume: 'gal' }, shape: 'vertical-cylinder', diameter: 48, length: 72 };
 const PRODUCTS = ['diesel', 'sodium hypochlorite 12.5%', 'potable water', 'ferric chloride'];
 
-function seed(store: Store, teams: number, tanksPerTeam: number, days: number): void {
+export function seed(store: Store, teams: number, tanksPerTeam: number, days: number): void {
   store.transaction(() => {
     for (let t = 0; t < teams; t++) {
       const team = `bench:${t}`;
@@ -139,27 +139,32 @@ export const digestSection: BenchSection = {
         }
         return n;
       });
-      const compose = timeMs(() => {
-        let chars = 0;
-        for (const team of all) {
-          const reply = composeDigest({
-            teamName: team.name,
-            timeZone: team.timeZone,
-            demo: false,
-            now: NOW,
-            since: NOW - DAY,
-            statuses: statuses.get(team.id) ?? [],
-          });
-          chars += reply.headline.length;
-        }
-        return chars;
-      });
+      const composeAll = () =>
+        timeMs(() => {
+          let chars = 0;
+          for (const team of all) {
+            const reply = composeDigest({
+              teamName: team.name,
+              timeZone: team.timeZone,
+              demo: false,
+              now: NOW,
+              since: NOW - DAY,
+              statuses: statuses.get(team.id) ?? [],
+            });
+            chars += reply.headline.length;
+          }
+          return chars;
+        });
+      // The first compose of the process (its code not yet optimized: the cold row), and the next one, as a
+      // bot that has been running composes each morning (the warm row).
+      const composeFirst = composeAll();
+      const compose = composeAll();
       const scale = `${teams.toLocaleString('en-US')} teams x 50 tanks`;
       const vsScan = { name: 'raw store scan alone', value: scan.ms };
       return [
         {
-          name: `cold: all digests built, ${scale} (first status of every tank + compose)`,
-          value: status.ms + compose.ms,
+          name: `cold: all digests built, ${scale} (first status of every tank + first compose)`,
+          value: status.ms + composeFirst.ms,
           unit: 'ms',
           baseline: vsScan,
           goal: '< 2,000 ms for 1,000 teams',
@@ -173,7 +178,13 @@ export const digestSection: BenchSection = {
         },
         { name: '  of which tank statuses, cold', value: status.ms, unit: 'ms', baseline: vsScan },
         { name: '  of which tank statuses, warm', value: warm.ms, unit: 'ms', baseline: vsScan },
-        { name: '  of which compose + fit (bot/schedule)', value: compose.ms, unit: 'ms', baseline: vsScan },
+        {
+          name: '  of which compose + fit (bot/schedule), first in the process',
+          value: composeFirst.ms,
+          unit: 'ms',
+          baseline: vsScan,
+        },
+        { name: '  of which compose + fit, warm', value: compose.ms, unit: 'ms', baseline: vsScan },
         {
           name: '  tank statuses, warm, read per tank (before the team prefetch)',
           value: perTank.ms,
