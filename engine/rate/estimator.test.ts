@@ -280,6 +280,44 @@ describe('shift cases from held-out scenario seeds', () => {
     expect(Math.abs(points[points.length - 1]!.rate - 900) / 900).toBeLessThan(0.05);
   });
 
+  it('counts a withdrawal a 6-hourly reading fell in the middle of as one, not as a faster rate', () => {
+    const readings = series({
+      start: 9000,
+      step: 6 * HOUR,
+      days: 20,
+      rate: () => 400,
+      noise: 10,
+      shifts: [
+        { at: 10 * DAY - HOUR, volume: -350 },
+        { at: 10 * DAY + HOUR, volume: -350 },
+      ],
+    });
+    const { events, points } = analyzeSeries(readings, [], { capacity: 10_000 });
+    expect(events.map((e) => e.type)).toEqual(['withdrawal']);
+    expect(Math.abs(events[0]!.volume - 700)).toBeLessThan(60);
+    for (const p of points.filter((x) => x.time > 11 * DAY))
+      expect(Math.abs(p.rate - 400) / 400).toBeLessThan(0.1);
+  });
+
+  it('counts a withdrawal followed by a low spike as a withdrawal and a suspect reading', () => {
+    const readings = series({
+      start: 9000,
+      step: 6 * HOUR,
+      days: 20,
+      rate: () => 400,
+      noise: 10,
+      shifts: [{ at: 10 * DAY - 2 * HOUR, volume: -700 }],
+    });
+    const spike = readings.findIndex((r) => r.time === 10 * DAY + 6 * HOUR);
+    readings[spike]!.volume -= 1500;
+    const { events, points, suspects } = analyzeSeries(readings, [], { capacity: 10_000 });
+    expect(events.map((e) => e.type)).toEqual(['withdrawal']);
+    expect(Math.abs(events[0]!.volume - 700)).toBeLessThan(60);
+    expect(suspects.map((x) => x.time)).toContain(readings[spike]!.time);
+    for (const p of points.filter((x) => x.time > 11 * DAY))
+      expect(Math.abs(p.rate - 400) / 400).toBeLessThan(0.1);
+  });
+
   it('sees no rise while a tank that ran dry reads empty, only the delivery after it', () => {
     for (const step of [HOUR, 6 * HOUR]) {
       const readings = series({

@@ -10,12 +10,14 @@ import { type Prediction, predict, reseedVolume, update } from './kalman.js';
 import { applySmallLogged, registerLogged, takeLogged } from './logged.js';
 import { copyPoint, type ScratchPoint, scratchPoint, writePoint, writeRejectedPoint } from './point.js';
 import { learnProfile, profileAt } from './profile.js';
+import { rateUndoSnapshot, restoreBeforeRateChange, shiftEndingAt } from './rate-undo.js';
 import { clearRecent, pushRecent, trimRecent } from './recent.js';
 import { noiseVar } from './state.js';
 import { deviationReason, unitSlipReason } from './suspect.js';
 import * as tuning from './tuning.js';
 import type {
   RateChange,
+  RateChangeUndo,
   RateEstimator,
   RateEstimatorState,
   RatePoint,
@@ -98,6 +100,16 @@ export class Estimator implements RateEstimator {
         pr = this.predictTo(time, R);
         e = volume - pr.v;
         deviant = Math.abs(e) > this.threshold(pr, R);
+      }
+    }
+
+    if (s.rateUndo) {
+      const undo = s.rateUndo;
+      s.rateUndo = null;
+      if (deviant && this.revertRateChange(undo, time, volume, e, R)) {
+        pr = this.predictTo(time, R);
+        e = volume - pr.v;
+        deviant = Math.abs(e) > this.threshold(pr, R) || this.beyondAnyUse(volume, R);
       }
     }
 
@@ -273,6 +285,7 @@ export class Estimator implements RateEstimator {
     const s = this.s;
     const readings = s.pending;
     s.pending = [];
+    s.rateUndo = rateUndoSnapshot(s, readings);
     const from = s.r;
     const at = s.lastTime!;
     const first = readings[0]!;
@@ -289,6 +302,32 @@ export class Estimator implements RateEstimator {
     s.basisStart = at;
     s.basisCount = s.count - readings.length + 1;
     if (!s.changePending) s.changePending = { at, from, alarm: time, count: s.count };
+  }
+
+  /** The readings taken as a rate change were a shift after all (see rate-undo.ts): says whether they were. */
+  private revertRateChange(
+    undo: RateChangeUndo,
+    time: number,
+    volume: number,
+    error: number,
+    R: number,
+  ): boolean {
+    const s = this.s;
+    const end = shiftEndingAt(undo, time, volume, error, R);
+    if (end < 0) return false;
+    restoreBeforeRateChange(s, undo, end);
+    const level = undo.readings[end]!;
+    const pr = this.predictTo(level.time, R);
+    this.acceptShift(
+      level.time,
+      level.volume,
+      pr,
+      R,
+      (undo.lastTime + undo.readings[0]!.time) / 2,
+      level.time,
+      false,
+    );
+    return true;
   }
 
   private acceptShift(

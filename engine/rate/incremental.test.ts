@@ -172,4 +172,21 @@ describe('stored states', () => {
     expect(isRateEstimatorState('{}')).toBe(false);
     expect(() => restoreRateEstimator({ ...state, version: 1 })).toThrow(/rebuild it from the readings/);
   });
+
+  it('keeps, checks and resumes the filter held back after sparse readings taken as a rate change', () => {
+    // 6-hourly, 100 L a reading, and a withdrawal a reading fell in the middle of (350 L on each side).
+    const readings = Array.from({ length: 60 }, (_, i) => ({
+      time: i * 6 * HOUR,
+      volume: 9000 - 100 * i - (i >= 40 ? 350 : 0) - (i >= 41 ? 350 : 0),
+    }));
+    const whole = analyzeSeries(readings, [], { capacity: 10_000 });
+    const first = createRateEstimator({ capacity: 10_000 });
+    feed(first, readings.slice(0, 42), []);
+    const state = JSON.parse(JSON.stringify(first.toJSON())) as RateEstimatorState;
+    expect(state.rateUndo).not.toBeNull();
+    expect(isRateEstimatorState(state)).toBe(true);
+    expect(isRateEstimatorState({ ...state, rateUndo: { ...state.rateUndo!, v: 'x' } })).toBe(false);
+    expect(feed(restoreRateEstimator(state), readings.slice(42), [])).toEqual(whole.points.slice(42));
+    expect(whole.events.map((e) => e.type)).toEqual(['withdrawal']);
+  });
 });

@@ -41,5 +41,17 @@ export function isRateEstimatorState(value: unknown): value is RateEstimatorStat
   if (!ARRAYS.every((k) => Array.isArray(s[k]))) return false;
   if (!Array.isArray(s.dailyProfile) || s.dailyProfile.length !== 24) return false;
   if (!s.dailyProfile.every((x) => Number.isFinite(x))) return false;
+  if (!(s.rateUndo === null || isRateUndo(s.rateUndo))) return false;
   return (s.recentTimes as unknown[]).length === (s.recentVolumes as unknown[]).length;
+}
+
+const UNDO_NUMBERS = ['lastTime', 'v', 'r', 'p00', 'p01', 'p11', 'innovationVar', 'basisStart', 'basisCount'];
+
+function isRateUndo(value: unknown): boolean {
+  if (typeof value !== 'object' || value === null) return false;
+  const u = value as Record<string, unknown>;
+  if (!UNDO_NUMBERS.every((k) => typeof u[k] === 'number' && Number.isFinite(u[k]))) return false;
+  if (!(typeof u.changeCount === 'number' && Number.isInteger(u.changeCount) && u.changeCount >= 0))
+    return false;
+  return Array.isArray(u.readings) && u.readings.length > 0;
 }

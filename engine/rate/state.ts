@@ -1,8 +1,11 @@
 // The estimator's state: its initial value, its version, and the measurement noise derived from it.
 import type { RateEstimatorState, RateOptions } from './types.js';
 
-/** Bumped whenever the state's shape or meaning changes (2: recent readings kept for refits; 3: daily profile; 4: its running sum). */
-export const RATE_STATE_VERSION = 4;
+/**
+ * Bumped whenever the state's shape or meaning changes (2: recent readings kept for refits; 3: daily profile;
+ * 4: its running sum; 5: the filter before a rate change, kept one reading).
+ */
+export const RATE_STATE_VERSION = 5;
 
 export function initialState(options: RateOptions = {}): RateEstimatorState {
   const capacity = options.capacity !== undefined && options.capacity > 0 ? options.capacity : null;
@@ -32,6 +35,7 @@ export function initialState(options: RateOptions = {}): RateEstimatorState {
     dailyProfileSum: 0,
     pending: [],
     undo: null,
+    rateUndo: null,
     loggedPending: [],
     changePending: null,
     events: [],

@@ -99,6 +99,8 @@ export interface RateEstimatorState {
   pending: TimedVolume[];
   /** Filter state before an event accepted at once, kept one reading in case it was a typo. */
   undo: UndoState | null;
+  /** Filter state before sparse readings were taken as a rate change, kept one reading in case of a shift. */
+  rateUndo: RateChangeUndo | null;
   loggedPending: TimedVolume[];
   changePending: { at: number; from: number; alarm: number; count: number } | null;
   events: TankEvent[];
@@ -117,4 +119,21 @@ export interface UndoState {
   p11: number;
   eventCount: number;
   previousEvent: TankEvent | null;
+}
+
+export interface RateChangeUndo {
+  lastTime: number;
+  v: number;
+  r: number;
+  p00: number;
+  p01: number;
+  p11: number;
+  innovationVar: number;
+  basisStart: number;
+  basisCount: number;
+  changePending: RateEstimatorState['changePending'];
+  /** Length of `changes` before. */
+  changeCount: number;
+  /** The deviant readings taken as the change. */
+  readings: TimedVolume[];
 }
