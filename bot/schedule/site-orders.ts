@@ -15,6 +15,7 @@ import type { TankStatus } from '../tank-status.js';
 
 /** Tanks whose order-by falls this many days after the earliest one share its delivery (our choice). */
 export const SHARED_DELIVERY_WINDOW_DAYS = 3;
+const DAY_MS = 86_400_000;
 
 function inLitres(plan: RefillPlan, unit: VolumeUnit, now: number): RefillPlan {
   const litres = mapPlanVolumes(plan, (v) => toLitres(v, unit));
@@ -44,9 +45,14 @@ export function siteOrders(
 ): { lines: string[]; note: string | undefined } {
   const byId = new Map<string, TankStatus>();
   const plans: SitePlan[] = [];
+  // Only groups whose earliest order falls due today are listed, and a group spans the window after its
+  // earliest: a tank due later than that joins none of them, so it is not consolidated at all.
+  const latestJoining = endOfDay + SHARED_DELIVERY_WINDOW_DAYS * DAY_MS;
   for (const s of statuses) {
     const unit = s.volumeUnit;
-    if (!s.refill || !isVolumeUnit(unit)) continue;
+    const orderBy = s.refill?.orderBy;
+    if (!s.refill || orderBy === null || orderBy === undefined || orderBy > latestJoining) continue;
+    if (!isVolumeUnit(unit)) continue;
     const tankId = String(s.tank.id);
     byId.set(tankId, s);
     plans.push({

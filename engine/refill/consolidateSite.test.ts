@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { consolidateSite, type SitePlan } from './consolidateSite.js';
+import { consolidateSite, type SiteOrder, type SitePlan } from './consolidateSite.js';
 import { planRefill, type RefillInput, type RefillPlan } from './planRefill.js';
 
 const DAY = 86_400_000;
@@ -98,27 +98,31 @@ describe('consolidateSite', () => {
   });
 });
 
+const tankArb = fc.record({
+  volume: fc.double({ min: 1100, max: 4400, noNaN: true }),
+  rate: fc.double({ min: -200, max: 300, noNaN: true }),
+  site: fc.constantFrom('North Yard', 'Ridge Pump Station', 'Mill Creek Lift Station'),
+  product: fc.constantFrom('diesel', 'caustic soda'),
+});
+
+const plansOf = (tanks: readonly { volume: number; rate: number; site: string; product: string }[]) =>
+  tanks.map(
+    (t, i): SitePlan => ({
+      tankId: `t${i}`,
+      site: t.site,
+      product: t.product,
+      plan: plan({ volume: t.volume, rate: t.rate, filling: t.rate < 0 }),
+    }),
+  );
+
 describe('consolidateSite laws', () => {
   it('puts every tank with an order-by in exactly one group of its own site, product and mode, within the window', () => {
     fc.assert(
       fc.property(
-        fc.array(
-          fc.record({
-            volume: fc.double({ min: 1100, max: 4400, noNaN: true }),
-            rate: fc.double({ min: -200, max: 300, noNaN: true }),
-            site: fc.constantFrom('North Yard', 'Ridge Pump Station', 'Mill Creek Lift Station'),
-            product: fc.constantFrom('diesel', 'caustic soda'),
-          }),
-          { maxLength: 25 },
-        ),
+        fc.array(tankArb, { maxLength: 25 }),
         fc.double({ min: 0, max: 10, noNaN: true }),
         (tanks, windowDays) => {
-          const plans: SitePlan[] = tanks.map((t, i) => ({
-            tankId: `t${i}`,
-            site: t.site,
-            product: t.product,
-            plan: plan({ volume: t.volume, rate: t.rate, filling: t.rate < 0 }),
-          }));
+          const plans = plansOf(tanks);
           const orders = consolidateSite(plans, windowDays);
           const seen = orders.flatMap((o) => o.tanks.map((l) => l.tankId)).sort();
           const dated = plans
@@ -139,6 +143,28 @@ describe('consolidateSite laws', () => {
         },
       ),
       { numRuns: 100 },
+    );
+  });
+
+  it('lists the same groups due by a cut-off when tanks due more than the window after it are left out', () => {
+    // What bot/schedule/site-orders relies on to consolidate only the tanks that can join an order due today.
+    fc.assert(
+      fc.property(
+        fc.array(tankArb, { maxLength: 12 }),
+        fc.double({ min: 0, max: 10, noNaN: true }),
+        fc.double({ min: 0, max: 14, noNaN: true }),
+        (tanks, windowDays, cutDays) => {
+          const plans = plansOf(tanks);
+          const cut = now + cutDays * DAY;
+          const due = (orders: SiteOrder[]) =>
+            orders.filter((o) => o.verdict === 'order-now' || o.orderBy <= cut);
+          const joining = plans.filter(
+            (p) => p.plan.orderBy !== null && p.plan.orderBy <= cut + windowDays * DAY,
+          );
+          expect(due(consolidateSite(joining, windowDays))).toEqual(due(consolidateSite(plans, windowDays)));
+        },
+      ),
+      { numRuns: 200 },
     );
   });
 });
