@@ -1,6 +1,6 @@
 import type Database from 'better-sqlite3';
 import { createScheduleTables } from '../schedule/schema.js';
-import { RATE_CACHE_SQL, RATE_SUMMARY_SQL } from './rate-cache.js';
+import { RATE_CACHE_SQL, RATE_LEAN_SQL, RATE_SUMMARY_SQL } from './rate-cache.js';
 
 /**
  * The store's schema, as an ordered list: each migration runs once, in order, inside one transaction, and
@@ -136,6 +136,13 @@ export const migrations: Migration[] = [
     name: 'rate cache summary per tank (events, newest readings) so a digest does not parse the state',
     up(db) {
       db.exec(RATE_SUMMARY_SQL);
+    },
+  },
+  {
+    version: 5,
+    name: 'rate cache points and summary in lean forms (faster to parse for a digest); rebuilt once',
+    up(db) {
+      db.exec(RATE_LEAN_SQL);
     },
   },
 ];

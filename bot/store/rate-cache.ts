@@ -6,7 +6,7 @@ import {
   type TankEvent,
 } from '../../engine/rate/index.js';
 import { parseJsonColumn } from './json-column.js';
-import { type ReadingDbRow, type SeriesReading, toReading } from './readings.js';
+import type { ReadingDbRow, SeriesReading } from './readings.js';
 import type { Reading } from './types.js';
 
 /**
@@ -79,6 +79,12 @@ export const RATE_SUMMARY_SQL = `
   ALTER TABLE rate_cache ADD COLUMN summary TEXT;
 `;
 
+/**
+ * Migration 5: `points` and `summary` in their lean forms (below). Rows in the earlier forms are dropped, so
+ * each tank's state is rebuilt once in these.
+ */
+export const RATE_LEAN_SQL = 'DELETE FROM rate_cache;';
+
 export const RATE_CACHE_SQL = `
   CREATE INDEX readings_series ON readings (team_id, tank_id, time, id, kind, value, unit)
     WHERE deleted_at IS NULL AND status = 'ok';
@@ -112,49 +118,116 @@ export const RATE_CACHE_SQL = `
     BEGIN DELETE FROM rate_cache WHERE team_id = OLD.team_id AND tank_id = OLD.id; END;
 `;
 
-type SeriesTuple = [number, number, SeriesReading['kind'], number, string];
+/*
+ * The stored forms, lean because a digest parses every tank's row each morning (parsing was a large part of
+ * it): `points` is `[latest, trusted]`, or `[latest]` when the two are the same point; `summary` is
+ * `[version, events, recent, latest]` with the recent readings flat, five values each (id, time, kind, value,
+ * unit), newest first, and of the newest one whole only what those five and the row do not say (raw text,
+ * user, status, created at), or null when there is none.
+ */
+type LatestRest = [rawText: string, userId: string, status: Reading['status'], createdAt: number];
 
-const isSeriesTuple = (t: unknown): t is SeriesTuple =>
-  Array.isArray(t) &&
-  t.length === 5 &&
-  typeof t[0] === 'number' &&
-  typeof t[1] === 'number' &&
-  typeof t[2] === 'string' &&
-  typeof t[3] === 'number' &&
-  typeof t[4] === 'string';
-
-const isDbReading = (r: unknown): r is ReadingDbRow =>
-  typeof r === 'object' &&
-  r !== null &&
-  typeof (r as ReadingDbRow).id === 'number' &&
-  typeof (r as ReadingDbRow).time === 'number' &&
-  typeof (r as ReadingDbRow).raw_text === 'string';
-
-/** A stored summary, or undefined when it is missing or damaged (the row is then no entry: rebuilt). */
-function summaryOf(text: string | null): RateSummary | undefined {
-  const s = parseJsonColumn<Record<string, unknown> | null>(text, null);
-  if (typeof s !== 'object' || s === null) return undefined;
-  const { version, events, recent, latest } = s;
-  if (typeof version !== 'number' || !Array.isArray(events) || !Array.isArray(recent)) return undefined;
-  if (!recent.every(isSeriesTuple) || !(latest === null || isDbReading(latest))) return undefined;
-  return {
-    version,
-    events: events as TankEvent[],
-    recent: recent.map(([id, time, kind, value, unit]) => ({ id, time, kind, value, unit })),
-    latest: latest === null ? null : toReading(latest),
-  };
+function isRecentFlat(flat: unknown): flat is (string | number)[] {
+  if (!Array.isArray(flat) || flat.length % 5 !== 0) return false;
+  for (let i = 0; i < flat.length; i += 5) {
+    if (
+      typeof flat[i] !== 'number' ||
+      typeof flat[i + 1] !== 'number' ||
+      typeof flat[i + 2] !== 'string' ||
+      typeof flat[i + 3] !== 'number' ||
+      typeof flat[i + 4] !== 'string'
+    ) {
+      return false;
+    }
+  }
+  return true;
 }
 
-/** A stored row as an entry; a summary that does not parse is no entry (the cache is rebuilt). */
-export function rateCacheEntryOf(row: RateCacheDbRow): RateCacheEntry | undefined {
-  const summary = summaryOf(row.summary);
-  if (!summary) return undefined;
+const isLatestRest = (r: unknown): r is LatestRest =>
+  Array.isArray(r) &&
+  r.length === 4 &&
+  typeof r[0] === 'string' &&
+  typeof r[1] === 'string' &&
+  typeof r[2] === 'string' &&
+  typeof r[3] === 'number';
+
+/** A stored summary, or undefined when it is missing or damaged (the row is then no entry: rebuilt). */
+function summaryOf(text: string | null, teamId: string, tankId: number): RateSummary | undefined {
+  const s = parseJsonColumn<unknown>(text, null);
+  if (!Array.isArray(s) || s.length !== 4) return undefined;
+  const [version, events, flat, stored] = s as unknown[];
+  if (typeof version !== 'number' || !Array.isArray(events) || !isRecentFlat(flat)) return undefined;
+  // The newest reading's rest is there exactly when there are readings.
+  const rest = stored === null ? null : isLatestRest(stored) ? stored : undefined;
+  if (rest === undefined || (rest === null) !== (flat.length === 0)) return undefined;
+  const recent: SeriesReading[] = [];
+  for (let i = 0; i < flat.length; i += 5) {
+    recent.push({
+      id: flat[i] as number,
+      time: flat[i + 1] as number,
+      kind: flat[i + 2] as SeriesReading['kind'],
+      value: flat[i + 3] as number,
+      unit: flat[i + 4] as string,
+    });
+  }
+  const newest = recent[0];
+  const latest: Reading | null =
+    newest && rest
+      ? {
+          id: newest.id,
+          teamId,
+          tankId,
+          time: newest.time,
+          kind: newest.kind,
+          value: newest.value,
+          unit: newest.unit,
+          rawText: rest[0],
+          userId: rest[1],
+          status: rest[2],
+          createdAt: rest[3],
+        }
+      : null;
+  return { version, events: events as TankEvent[], recent, latest };
+}
+
+function summaryText(version: number, events: readonly TankEvent[], rows: readonly ReadingDbRow[]): string {
+  const flat: (string | number)[] = [];
+  for (const r of rows) flat.push(r.id, r.time, r.kind, r.value, r.unit);
+  const newest = rows[0];
+  const rest: LatestRest | null = newest
+    ? [newest.raw_text, newest.user_id, newest.status, newest.created_at]
+    : null;
+  return JSON.stringify([version, events, flat, rest]);
+}
+
+function pointsOf(text: string): RateCacheEntry['points'] | undefined {
+  const p = parseJsonColumn<unknown>(text, null);
+  if (!Array.isArray(p) || (p.length !== 1 && p.length !== 2)) return undefined;
+  const [latest, trusted = latest] = p as (RatePoint | null)[];
+  return { latest: latest ?? null, trusted: trusted ?? null };
+}
+
+function pointsText({ latest, trusted }: RateCacheWrite['points']): string {
+  const one = JSON.stringify(latest);
+  const other = JSON.stringify(trusted);
+  return one === other ? `[${one}]` : `[${one},${other}]`;
+}
+
+/** A stored row of a team's tank as an entry; a summary that does not parse is no entry (rebuilt). */
+export function rateCacheEntryOf(
+  row: RateCacheDbRow,
+  teamId: string,
+  tankId: number,
+): RateCacheEntry | undefined {
+  const summary = summaryOf(row.summary, teamId, tankId);
+  const points = summary && pointsOf(row.points);
+  if (!summary || !points) return undefined;
   return {
     asOfTime: row.as_of_time,
     readings: row.readings,
     skipped: row.skipped,
     specKey: row.spec_key,
-    points: parseJsonColumn<RateCacheEntry['points']>(row.points, { latest: null, trusted: null }),
+    points,
     summary,
   };
 }
@@ -184,7 +257,7 @@ export function rateCacheRepo(db: Database.Database): RateCacheRepo {
   return {
     get: (teamId, tankId) => {
       const row = get.get(teamId, tankId);
-      return row ? rateCacheEntryOf(row) : undefined;
+      return row ? rateCacheEntryOf(row, teamId, tankId) : undefined;
     },
     state: (teamId, tankId) => {
       const parsed = parseJsonColumn<unknown>(state.get(teamId, tankId), null);
@@ -192,12 +265,6 @@ export function rateCacheRepo(db: Database.Database): RateCacheRepo {
     },
     put: (teamId, tankId, e) => {
       const rows = recent.all(teamId, tankId, e.asOfTime, RECENT_KEPT);
-      const summary = {
-        version: e.state.version,
-        events: e.state.events,
-        recent: rows.map((r) => [r.id, r.time, r.kind, r.value, r.unit]),
-        latest: rows[0] ?? null,
-      };
       put.run(
         teamId,
         tankId,
@@ -206,8 +273,8 @@ export function rateCacheRepo(db: Database.Database): RateCacheRepo {
         e.skipped,
         e.specKey,
         JSON.stringify(e.state),
-        JSON.stringify(e.points),
-        JSON.stringify(summary),
+        pointsText(e.points),
+        summaryText(e.state.version, e.state.events, rows),
       );
     },
     drop: (teamId, tankId) => {

@@ -143,8 +143,16 @@ describe('rate-cache summary', () => {
       store.readings.add(TEAM, { ...reading, rawText: `${400 - 9 * i} gal`, userId: 'u1' }, time);
     }
     const expected = digestStatuses(store, TEAM, NOW);
-    for (const damage of ["'{'", '\'{"version":4,"events":[],"recent":[[1]],"latest":null}\'', 'NULL']) {
-      store.db.exec(`UPDATE rate_cache SET summary = ${damage}`);
+    const damages = [
+      "summary = '{'",
+      'summary = \'{"version":4,"events":[],"recent":[[1]],"latest":null}\'', // the form before migration 5
+      "summary = '[4,[],[1],null]'", // a reading cut short
+      'summary = \'[4,[],[],["9 gal","u1","ok",1]]\'', // a newest reading's rest without the reading
+      'summary = NULL',
+      'points = \'{"latest":null,"trusted":null}\'', // the form before migration 5
+    ];
+    for (const damage of damages) {
+      store.db.exec(`UPDATE rate_cache SET ${damage}`);
       expect(store.rateCache.get(TEAM, tank.id)).toBeUndefined();
       expect(digestStatuses(store, TEAM, NOW)).toEqual(expected);
       // ...and the status kept a whole row again.

@@ -153,7 +153,7 @@ export function teamReads(
   const summarized = new Set<number>();
   for (const row of s.rateCache.all(teamId)) {
     if (row.summary !== null) summarized.add(row.tank_id);
-    const entry = rateCacheEntryOf(row);
+    const entry = rateCacheEntryOf(row, teamId, row.tank_id);
     if (entry) caches.set(row.tank_id, entry);
   }
   const sinceCache = groupBy(s.sinceCache.all(teamId));
