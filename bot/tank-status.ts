@@ -4,7 +4,7 @@ import type { RatePoint, TankEventType } from '../engine/rate/index.js';
 import { mapPlanVolumes, planRefillWith, type RefillPlan } from '../engine/refill/planRefill.js';
 import { parseRefillSettings, type RefillSettings } from '../engine/refill/settings.js';
 import type { Result } from '../engine/result.js';
-import { fromLitres, fromMetres } from '../engine/units/index.js';
+import { fromLitres, fromMetres, type VolumeUnit } from '../engine/units/index.js';
 import { readingLevelMetres } from './reading-volume.js';
 import type { Store } from './store/index.js';
 import type { RateCacheEntry } from './store/rate-cache.js';
@@ -82,6 +82,22 @@ export interface TankStatus {
   problem?: string;
 }
 
+/** Litres to a display unit: one function per unit, made once (a status converts a few dozen figures). */
+const converters = new Map<VolumeUnit, (litres: number) => number>();
+function showIn(unit: VolumeUnit): (litres: number) => number {
+  let show = converters.get(unit);
+  if (!show) {
+    show = (litres: number) => fromLitres(litres, unit);
+    converters.set(unit, show);
+  }
+  return show;
+}
+
+/** The newest `limit` readings after `since` and the deliveries after it, in litres. */
+function recentOf(geometry: TankGeometry, reads: TankReads, tankId: number, since: number, limit: number) {
+  return seriesOf(geometry, reads.recentSeries(tankId, since, limit), reads.deliveries(tankId, since + 1));
+}
+
 /** Common practice for liquids that expand: fill no higher than 90% unless the tank says otherwise. */
 const DEFAULT_SAFE_FILL_PERCENT = 90;
 
@@ -130,17 +146,15 @@ export function tankStatus(
   }
   const geometry = built.value;
   const { length: lengthUnit, volume: volumeUnit } = geometry.spec.units;
-  const show = (litres: number) => fromLitres(litres, volumeUnit);
+  const show = showIn(volumeUnit);
   const reads = options.known?.reads ?? storeReads(store, teamId);
   const rate = rateOf(store, teamId, tank, geometry, filling, reads);
   const latestRow = reads.latest(tankId);
   // The chart and "change since" need only recent readings; the rate state carries the rest.
   const since = (latestRow?.time ?? now) - HISTORY_WINDOW_MS;
-  const recentOf = (limit: number) =>
-    seriesOf(geometry, reads.recentSeries(tankId, since, limit), reads.deliveries(tankId, since + 1));
   const limit = options.historyLimit ?? HISTORY_LIMIT;
   let asked = limit;
-  let recent = recentOf(asked);
+  let recent = recentOf(geometry, reads, tankId, since, asked);
   // Readings the shape cannot hold leave a short history fewer readings than asked: ask for as many more,
   // until there are enough or no more (a few more stay within what a team's prefetch holds).
   while (
@@ -149,7 +163,7 @@ export function tankStatus(
     asked < HISTORY_LIMIT
   ) {
     asked = Math.min(HISTORY_LIMIT, limit + recent.skipped);
-    recent = recentOf(asked);
+    recent = recentOf(geometry, reads, tankId, since, asked);
   }
   const safeFillLitres =
     ((tank.settings.safeFillPercent ?? DEFAULT_SAFE_FILL_PERCENT) / 100) * geometry.capacity;
@@ -329,13 +343,15 @@ function runwayFrom(
   const r = runwayTo(point, { volume: targetVolume }, { filling, capacity });
   // The engine counts from the reading; a person asks "from now".
   const elapsed = Math.max(0, (now - point.time) / DAY_MS);
-  const fromNow = (d: number | null) => (d === null ? null : Math.max(0, d - elapsed));
   return {
     target,
     targetVolume: show(targetVolume),
-    days: fromNow(r.days),
-    low: fromNow(r.daysLow),
-    high: fromNow(r.daysHigh),
+    days: daysFromNow(r.days, elapsed),
+    low: daysFromNow(r.daysLow, elapsed),
+    high: daysFromNow(r.daysHigh, elapsed),
     at: r.runoutAt,
   };
 }
+
+const daysFromNow = (days: number | null, elapsed: number) =>
+  days === null ? null : Math.max(0, days - elapsed);

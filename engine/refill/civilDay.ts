@@ -10,8 +10,9 @@ const DAY_MS = 86_400_000;
 const HOUR_MS = 3_600_000;
 const MINUTE_MS = 60_000;
 
-/** Offset in minutes per `zone|hour`, or NaN where it is not one whole-minute value all hour. */
-const hourOffsets = new Map<string, number>();
+/** Offset in minutes per zone and hour, or NaN where it is not one whole-minute value all hour. */
+const hourOffsets = new Map<string, Map<number, number>>();
+let hourOffsetsKept = 0;
 const MAX_ENTRIES = 16_384;
 
 /** The local date of an instant, exactly as luxon gives it, as days since 1970-01-01. */
@@ -21,14 +22,23 @@ export function civilDayLuxon(ms: number, timeZone: string): number {
 }
 
 function offsetOfHour(hour: number, timeZone: string): number {
-  const key = `${timeZone}|${hour}`;
-  const known = hourOffsets.get(key);
+  let zone = hourOffsets.get(timeZone);
+  const known = zone?.get(hour);
   if (known !== undefined) return known;
-  if (hourOffsets.size >= MAX_ENTRIES) hourOffsets.clear();
+  if (hourOffsetsKept >= MAX_ENTRIES) {
+    hourOffsets.clear();
+    hourOffsetsKept = 0;
+    zone = undefined;
+  }
+  if (!zone) {
+    zone = new Map();
+    hourOffsets.set(timeZone, zone);
+  }
   const start = DateTime.fromMillis(hour * HOUR_MS, { zone: timeZone }).offset;
   const end = DateTime.fromMillis((hour + 1) * HOUR_MS - 1, { zone: timeZone }).offset;
   const offset = start === end && Number.isInteger(start) ? start : Number.NaN;
-  hourOffsets.set(key, offset);
+  zone.set(hour, offset);
+  hourOffsetsKept++;
   return offset;
 }
 

@@ -25,18 +25,41 @@ export function civilDayOf(ms: number, timeZone: string): CivilDay {
   return civilDay(ms, timeZone);
 }
 
-const instants = new Map<string, number>();
+/** Instants by zone, then hour of the day, then date (numbers as keys: no key text built per call). */
+const instants = new Map<string, Map<number, Map<CivilDay, number>>>();
+let instantsKept = 0;
 
 /** The instant of a local wall-clock time (hours, fractions allowed) on a date; a time skipped by a
  * daylight-saving change moves forward, as luxon does. */
 export function instantOf(day: CivilDay, hours: number, timeZone: string): number {
   // luxon spends tens of microseconds per zone conversion; plans ask for the same few dates again and again.
-  const key = `${day}|${hours}|${timeZone}`;
-  const known = instants.get(key);
+  let byHour = instants.get(timeZone);
+  let byDay = byHour?.get(hours);
+  const known = byDay?.get(day);
   if (known !== undefined) return known;
-  if (instants.size >= 8192) instants.clear();
+  if (instantsKept >= 8192) {
+    instants.clear();
+    instantsKept = 0;
+    byHour = undefined;
+    byDay = undefined;
+  }
+  if (!byHour) {
+    byHour = new Map();
+    instants.set(timeZone, byHour);
+  }
+  if (!byDay) {
+    byDay = new Map();
+    byHour.set(hours, byDay);
+  }
+  const instant = luxonInstantOf(day, hours, timeZone);
+  byDay.set(day, instant);
+  instantsKept++;
+  return instant;
+}
+
+function luxonInstantOf(day: CivilDay, hours: number, timeZone: string): number {
   const date = new Date(day * DAY_MS);
-  const instant = DateTime.fromObject(
+  return DateTime.fromObject(
     {
       year: date.getUTCFullYear(),
       month: date.getUTCMonth() + 1,
@@ -46,8 +69,6 @@ export function instantOf(day: CivilDay, hours: number, timeZone: string): numbe
     },
     { zone: timeZone },
   ).toMillis();
-  instants.set(key, instant);
-  return instant;
 }
 
 /** Start and (exclusive) end of a local date, as instants. */
