@@ -232,38 +232,55 @@ describe('analyzeSeries input order', () => {
 
 // Patterns that failed on accuracy-bench scenarios generated with other seeds (bench/accuracy, invented tanks).
 describe('shift cases from held-out scenario seeds', () => {
+  /** 20 days of 6-hourly readings at `rate` L/day on a 10 000 L tank, with `shifts`, optionally one spike. */
+  const sixHourly = (
+    start: number,
+    rate: number,
+    shifts: Plan['shifts'],
+    spike?: { at: number; by: number },
+  ) => {
+    const readings = series({ start, step: 6 * HOUR, days: 20, rate: () => rate, noise: 10, shifts });
+    if (spike) readings.find((r) => r.time === spike.at)!.volume += spike.by;
+    return { readings, ...analyzeSeries(readings, [], { capacity: 10_000 }) };
+  };
+  /** One event of `type` and about `volume` litres, and afterwards the rate within 10% of `rate`. */
+  const expectOne = (result: ReturnType<typeof sixHourly>, type: string, volume: number, rate: number) => {
+    expect(result.events.map((e) => e.type)).toEqual([type]);
+    expect(Math.abs(result.events[0]!.volume - volume)).toBeLessThan(100);
+    for (const p of result.points.filter((x) => x.time > 11 * DAY))
+      expect(Math.abs(p.rate - rate) / rate).toBeLessThan(0.1);
+  };
+
   it('counts a delivery a 6-hourly reading fell in the middle of as one event', () => {
-    const readings = series({
-      start: 3000,
-      step: 6 * HOUR,
-      days: 20,
-      rate: () => 300,
-      noise: 10,
-      shifts: [
-        { at: 10 * DAY - HOUR, volume: 2500 },
-        { at: 10 * DAY + HOUR, volume: 2500 },
-      ],
-    });
-    const { events } = analyzeSeries(readings, [], { capacity: 10_000 });
-    expect(events.map((e) => e.type)).toEqual(['delivery']);
-    expect(Math.abs(events[0]!.volume - 5000)).toBeLessThan(100);
+    const halves = [
+      { at: 10 * DAY - HOUR, volume: 2500 },
+      { at: 10 * DAY + HOUR, volume: 2500 },
+    ];
+    expectOne(sixHourly(3000, 300, halves), 'delivery', 5000, 300);
   });
 
   it('counts a spike just before a delivery and the delivery as one event', () => {
-    const readings = series({
-      start: 3000,
-      step: 6 * HOUR,
-      days: 20,
-      rate: () => 300,
-      noise: 10,
-      shifts: [{ at: 10 * DAY + 3 * HOUR, volume: 5000 }],
+    const result = sixHourly(3000, 300, [{ at: 10 * DAY + 3 * HOUR, volume: 5000 }], {
+      at: 10 * DAY,
+      by: 1500,
     });
-    const spike = readings.findIndex((r) => r.time === 10 * DAY);
-    readings[spike]!.volume += 1500;
-    const { events } = analyzeSeries(readings, [], { capacity: 10_000 });
-    expect(events.map((e) => e.type)).toEqual(['delivery']);
-    expect(Math.abs(events[0]!.volume - 5000)).toBeLessThan(100);
-    expect(Math.abs(events[0]!.start - 10 * DAY)).toBeLessThanOrEqual(6 * HOUR);
+    expectOne(result, 'delivery', 5000, 300);
+    expect(Math.abs(result.events[0]!.start - 10 * DAY)).toBeLessThanOrEqual(6 * HOUR);
+  });
+
+  it('counts a withdrawal a 6-hourly reading fell in the middle of as one, not as a faster rate', () => {
+    const halves = [
+      { at: 10 * DAY - HOUR, volume: -350 },
+      { at: 10 * DAY + HOUR, volume: -350 },
+    ];
+    expectOne(sixHourly(9000, 400, halves), 'withdrawal', 700, 400);
+  });
+
+  it('counts a withdrawal followed by a low spike as a withdrawal and a suspect reading', () => {
+    const spike = { at: 10 * DAY + 6 * HOUR, by: -1500 };
+    const result = sixHourly(9000, 400, [{ at: 10 * DAY - 2 * HOUR, volume: -700 }], spike);
+    expectOne(result, 'withdrawal', 700, 400);
+    expect(result.suspects.map((x) => x.time)).toContain(spike.at);
   });
 
   it('takes a delivery inside the first interval of twice-weekly dips as a delivery, not a filling rate', () => {
@@ -278,44 +295,6 @@ describe('shift cases from held-out scenario seeds', () => {
     expect(events.map((e) => e.type)).toEqual(['delivery']);
     for (const p of points.slice(3)) expect(p.rate).toBeGreaterThan(0);
     expect(Math.abs(points[points.length - 1]!.rate - 900) / 900).toBeLessThan(0.05);
-  });
-
-  it('counts a withdrawal a 6-hourly reading fell in the middle of as one, not as a faster rate', () => {
-    const readings = series({
-      start: 9000,
-      step: 6 * HOUR,
-      days: 20,
-      rate: () => 400,
-      noise: 10,
-      shifts: [
-        { at: 10 * DAY - HOUR, volume: -350 },
-        { at: 10 * DAY + HOUR, volume: -350 },
-      ],
-    });
-    const { events, points } = analyzeSeries(readings, [], { capacity: 10_000 });
-    expect(events.map((e) => e.type)).toEqual(['withdrawal']);
-    expect(Math.abs(events[0]!.volume - 700)).toBeLessThan(60);
-    for (const p of points.filter((x) => x.time > 11 * DAY))
-      expect(Math.abs(p.rate - 400) / 400).toBeLessThan(0.1);
-  });
-
-  it('counts a withdrawal followed by a low spike as a withdrawal and a suspect reading', () => {
-    const readings = series({
-      start: 9000,
-      step: 6 * HOUR,
-      days: 20,
-      rate: () => 400,
-      noise: 10,
-      shifts: [{ at: 10 * DAY - 2 * HOUR, volume: -700 }],
-    });
-    const spike = readings.findIndex((r) => r.time === 10 * DAY + 6 * HOUR);
-    readings[spike]!.volume -= 1500;
-    const { events, points, suspects } = analyzeSeries(readings, [], { capacity: 10_000 });
-    expect(events.map((e) => e.type)).toEqual(['withdrawal']);
-    expect(Math.abs(events[0]!.volume - 700)).toBeLessThan(60);
-    expect(suspects.map((x) => x.time)).toContain(readings[spike]!.time);
-    for (const p of points.filter((x) => x.time > 11 * DAY))
-      expect(Math.abs(p.rate - 400) / 400).toBeLessThan(0.1);
   });
 
   it('sees no rise while a tank that ran dry reads empty, only the delivery after it', () => {

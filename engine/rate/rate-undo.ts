@@ -4,17 +4,13 @@
 import { deviationReason } from './suspect.js';
 import * as tuning from './tuning.js';
 import type { RateChangeUndo, RateEstimatorState, TimedVolume } from './types.js';
+import { filterSnapshot, restoreFilter } from './undo.js';
 
 const { DAY_MS, EVENT_Z } = tuning;
 
 export function rateUndoSnapshot(s: RateEstimatorState, readings: TimedVolume[]): RateChangeUndo {
   return {
-    lastTime: s.lastTime!,
-    v: s.v,
-    r: s.r,
-    p00: s.p00,
-    p01: s.p01,
-    p11: s.p11,
+    ...filterSnapshot(s),
     innovationVar: s.innovationVar,
     basisStart: s.basisStart,
     basisCount: s.basisCount,
@@ -52,12 +48,7 @@ export function shiftEndingAt(
 
 /** Puts the filter back as it was before the rate change; readings after the shift's end become suspects. */
 export function restoreBeforeRateChange(s: RateEstimatorState, undo: RateChangeUndo, end: number): void {
-  s.lastTime = undo.lastTime;
-  s.v = undo.v;
-  s.r = undo.r;
-  s.p00 = undo.p00;
-  s.p01 = undo.p01;
-  s.p11 = undo.p11;
+  restoreFilter(s, undo);
   s.innovationVar = undo.innovationVar;
   s.basisStart = undo.basisStart;
   s.basisCount = undo.basisCount;

@@ -108,26 +108,24 @@ export interface RateEstimatorState {
   suspects: SuspectReading[];
 }
 
-export interface UndoState {
-  time: number;
-  volume: number;
+/** The filter as it was at its last trusted reading, kept to go back to. */
+export interface FilterSnapshot {
   lastTime: number;
   v: number;
   r: number;
   p00: number;
   p01: number;
   p11: number;
+}
+
+export interface UndoState extends FilterSnapshot {
+  time: number;
+  volume: number;
   eventCount: number;
   previousEvent: TankEvent | null;
 }
 
-export interface RateChangeUndo {
-  lastTime: number;
-  v: number;
-  r: number;
-  p00: number;
-  p01: number;
-  p11: number;
+export interface RateChangeUndo extends FilterSnapshot {
   innovationVar: number;
   basisStart: number;
   basisCount: number;
