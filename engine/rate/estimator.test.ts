@@ -297,6 +297,23 @@ describe('shift cases from held-out scenario seeds', () => {
     expect(Math.abs(points[points.length - 1]!.rate - 900) / 900).toBeLessThan(0.05);
   });
 
+  it('keeps deliveries in consecutive dip intervals apart when together they are more than the tank holds', () => {
+    // 7% of the tank a day, dips every 2.3 days; one delivery seen at the 25.3-day dip, the next at 27.6.
+    const readings = series({
+      start: 19_500,
+      step: 2.3 * DAY,
+      days: 38,
+      rate: () => 1400,
+      shifts: [
+        { at: 12.5 * DAY, volume: 14_000 },
+        { at: 23.5 * DAY, volume: 10_500 },
+        { at: 25.8 * DAY, volume: 12_000 },
+      ],
+    });
+    const { events } = analyzeSeries(readings, [], { capacity: 20_000 });
+    expect(events.map((e) => e.type)).toEqual(['delivery', 'delivery', 'delivery']);
+  });
+
   it('sees no rise while a tank that ran dry reads empty, only the delivery after it', () => {
     for (const step of [HOUR, 6 * HOUR]) {
       const readings = series({

@@ -342,9 +342,13 @@ export class Estimator implements RateEstimator {
     const s = this.s;
     const shift = level - pr.v;
     // A shift with no trusted reading since the previous one continues it (a delivery a reading fell in the
-    // middle of, a spike just before it): one truck is one event at any sampling interval.
+    // middle of, a spike just before it): one truck is one event at any sampling interval. Unless the two
+    // together are more than the tank holds: then they are two deliveries in consecutive intervals.
     const last = s.events[s.events.length - 1];
-    const adjoining = last !== undefined && last.end >= s.lastTime!;
+    const adjoining =
+      last !== undefined &&
+      last.end >= s.lastTime! &&
+      last.volume + Math.abs(shift) <= (s.capacity ?? s.scale);
     const mergeWindow = adjoining
       ? Number.POSITIVE_INFINITY
       : s.dtMean < DENSE_INTERVAL_DAYS
