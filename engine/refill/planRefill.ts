@@ -157,10 +157,11 @@ export function planRefillWith(
   });
 }
 
+const finite = (x: unknown) => typeof x === 'number' && Number.isFinite(x);
+
 function checkInput(
   input: Omit<RefillInput, 'settings'>,
 ): Result<{ capacity: number | undefined; volume: number }> {
-  const finite = (x: unknown) => typeof x === 'number' && Number.isFinite(x);
   for (const key of ['now', 'volume', 'lastReadingAt', 'rate', 'rateSigma'] as const) {
     if (!finite(input[key]))
       return fail(`Cannot plan a refill: ${key} is not a number (${String(input[key])}).`);
