@@ -1,12 +1,13 @@
-// The goal metrics on the scenario suite generated again with other seeds. The estimator was last tuned
-// looking at the first five (pooled, never one alone); the last five were only ever used to check.
+// The goal metrics on the scenario suite generated again with other seeds. While the estimator was last
+// changed, the tuning seeds' failing scenarios were looked into (figures pooled over them, never one alone);
+// the check seeds were seen only as totals (12345, 555, 9001) or not at all before the change (4321, 60606).
 import { runMethod } from './evaluate.js';
 import { missedGoals } from './goals.js';
 import { type FamilySummary, scenarioMetrics, summarise } from './metrics.js';
 import { accuracySuite } from './suite.js';
 
-export const TUNING_SEEDS = [777, 31337, 4242, 2027, 99];
-export const CHECK_SEEDS = [11, 12345, 8080, 555, 9001];
+export const TUNING_SEEDS = [777, 31337, 4242, 2027, 99, 11, 8080];
+export const CHECK_SEEDS = [12345, 555, 9001, 4321, 60606];
 
 export interface SeedRow {
   seed: string;
