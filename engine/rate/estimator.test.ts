@@ -314,6 +314,25 @@ describe('shift cases from held-out scenario seeds', () => {
     expect(events.map((e) => e.type)).toEqual(['delivery', 'delivery', 'delivery']);
   });
 
+  it('takes each dip above the last one as a delivery after use on twice-weekly dips triples', () => {
+    // 1000 L/day for four weeks, then 3000 L/day with a delivery in every interval: the dips go 1000 L,
+    // 3500 L, 1000 L, ... A rise of an eighth of the tank is a delivery, whatever the filter's noise says.
+    const shifts = [{ at: 13 * DAY, volume: 11_000 }];
+    for (let k = 0; k < 10; k++) shifts.push({ at: (30 + 3.5 * k) * DAY, volume: k % 2 ? 8000 : 13_000 });
+    const readings = series({
+      start: 18_000,
+      step: 3.5 * DAY,
+      days: 66,
+      rate: (t) => (t <= 28 * DAY ? 1000 : 3000),
+      shifts,
+    });
+    const { events } = analyzeSeries(readings, [], { capacity: 20_000 });
+    const rises = readings.filter((r, i) => i > 0 && r.volume > readings[i - 1]!.volume).map((r) => r.time);
+    expect(rises).toHaveLength(6);
+    expect(events.map((e) => e.type)).toEqual(rises.map(() => 'delivery'));
+    expect(events.map((e) => e.end)).toEqual(rises);
+  });
+
   it('sees no rise while a tank that ran dry reads empty, only the delivery after it', () => {
     for (const step of [HOUR, 6 * HOUR]) {
       const readings = series({

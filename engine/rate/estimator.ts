@@ -11,7 +11,7 @@ import { applySmallLogged, registerLogged, takeLogged } from './logged.js';
 import { copyPoint, type ScratchPoint, scratchPoint, writePoint, writeRejectedPoint } from './point.js';
 import { learnProfile, profileAt } from './profile.js';
 import { rateUndoSnapshot, restoreBeforeRateChange, shiftEndingAt } from './rate-undo.js';
-import { clearRecent, pushRecent, trimRecent } from './recent.js';
+import { clearRecent, lastRecentVolume, pushRecent, trimRecent } from './recent.js';
 import { noiseVar } from './state.js';
 import { deviationReason, unitSlipReason } from './suspect.js';
 import * as tuning from './tuning.js';
@@ -42,6 +42,7 @@ const {
   RATE_MEMORY_MAX_DAYS,
   RATE_TARGET_PRECISION,
   RECENT_KEEP_DAYS,
+  SPARSE_RISE_FRACTION,
 } = tuning;
 
 export class Estimator implements RateEstimator {
@@ -205,15 +206,21 @@ export class Estimator implements RateEstimator {
 
   /**
    * Use never fills a tank (nor empties a filling one): on sparse readings, one reading that far beyond the
-   * last level in the refill direction is a delivery (pick-up) whatever the rate. The usual test misses it
+   * last reading in the refill direction is a delivery (pick-up) whatever the rate. The usual test misses it
    * while the rate is unsure (the second reading, a refit after a change), and one interval of days would
    * then teach the filter a negative rate. Dense series never learn their rate from one interval.
+   * The last reading, not the filtered level: that lags when the rate is wrong. And a rise of
+   * SPARSE_RISE_FRACTION always counts: the noise estimate also holds the rate's misfit, so after a rough
+   * start or a rate change it can hide a delivery that only partly made up for days of faster use.
    */
   private beyondAnyUse(volume: number, R: number): boolean {
     const s = this.s;
     if (s.dtMean < DENSE_INTERVAL_DAYS) return false;
-    const rise = s.filling ? s.v - volume : volume - s.v;
-    return rise > Math.max(EVENT_Z * Math.sqrt(s.p00 + R), EVENT_MIN_FRACTION * (s.capacity ?? s.scale));
+    const last = lastRecentVolume(s, s.v);
+    const rise = s.filling ? last - volume : volume - last;
+    const size = s.capacity ?? s.scale;
+    const noise = Math.min(EVENT_Z * Math.sqrt(s.p00 + R), SPARSE_RISE_FRACTION * size);
+    return rise > Math.max(noise, EVENT_MIN_FRACTION * size);
   }
 
   private filterUpdate(time: number, volume: number, e: number, pr: Prediction, R: number): void {

@@ -17,6 +17,12 @@ export function clearRecent(s: RecentReadings): void {
   s.recentVolumes.length = 0;
 }
 
+/** The newest trusted reading's volume, or `fallback` when none is kept (the level a shift restarted at). */
+export function lastRecentVolume(s: RecentReadings, fallback: number): number {
+  const n = s.recentVolumes.length;
+  return n > 0 ? s.recentVolumes[n - 1]! : fallback;
+}
+
 /** Drops readings before `from`, in batches so the cost stays constant per reading. */
 export function trimRecent(s: RecentReadings, from: number): void {
   const times = s.recentTimes;
