@@ -333,6 +333,21 @@ describe('shift cases from held-out scenario seeds', () => {
     expect(events.map((e) => e.end)).toEqual(rises);
   });
 
+  it('learns slower use on daily dips as a rate change, not as a run of small deliveries', () => {
+    // 35 L/day on a 1000 L tank, then 11 L/day from day 20: each dip is above the prediction, none above
+    // the dip before.
+    const readings = series({
+      start: 950,
+      step: DAY,
+      days: 40,
+      rate: (t) => (t <= 20 * DAY ? 35 : 11),
+      noise: 2,
+    });
+    const { events, points } = analyzeSeries(readings, [], { capacity: 1000 });
+    expect(events).toEqual([]);
+    expect(Math.abs(points[points.length - 1]!.rate - 11)).toBeLessThan(2);
+  });
+
   it('sees no rise while a tank that ran dry reads empty, only the delivery after it', () => {
     for (const step of [HOUR, 6 * HOUR]) {
       const readings = series({

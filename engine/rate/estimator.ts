@@ -121,7 +121,16 @@ export class Estimator implements RateEstimator {
       const logged = takeLogged(s, time, e);
       const refillSign = s.filling ? -1 : 1;
       const sparse = s.dtMean >= DENSE_INTERVAL_DAYS;
-      if (logged || (sparse && Math.sign(e) === refillSign && !unitSlipReason(volume, pr.v))) {
+      // On sparse readings a rise above the prediction and the last reading is a delivery at once (the next
+      // reading may still take it back as a typo); one above the prediction only waits for the next reading,
+      // which tells slower use from a small delivery (looksLikeRateChange).
+      if (
+        logged ||
+        (sparse &&
+          Math.sign(e) === refillSign &&
+          !unitSlipReason(volume, pr.v) &&
+          this.riseOverLast(volume) > 0)
+      ) {
         s.undo = logged ? null : undoSnapshot(s, time, volume);
         const start = logged ? logged.time : (s.lastTime + time) / 2;
         this.acceptShift(time, volume, pr, R, start, time, logged !== null);
@@ -213,11 +222,17 @@ export class Estimator implements RateEstimator {
    * SPARSE_RISE_FRACTION always counts: the noise estimate also holds the rate's misfit, so after a rough
    * start or a rate change it can hide a delivery that only partly made up for days of faster use.
    */
+  /** How far `volume` is beyond the last trusted reading in the refill direction (negative: in the use one). */
+  private riseOverLast(volume: number): number {
+    const s = this.s;
+    const last = lastRecentVolume(s, s.v);
+    return s.filling ? last - volume : volume - last;
+  }
+
   private beyondAnyUse(volume: number, R: number): boolean {
     const s = this.s;
     if (s.dtMean < DENSE_INTERVAL_DAYS) return false;
-    const last = lastRecentVolume(s, s.v);
-    const rise = s.filling ? last - volume : volume - last;
+    const rise = this.riseOverLast(volume);
     const size = s.capacity ?? s.scale;
     const noise = Math.min(EVENT_Z * Math.sqrt(s.p00 + R), SPARSE_RISE_FRACTION * size);
     return rise > Math.max(noise, EVENT_MIN_FRACTION * size);
@@ -270,9 +285,9 @@ export class Estimator implements RateEstimator {
   }
 
   /**
-   * On sparse readings a faster (or slower) use also leaves the level off its prediction, in the direction of
-   * use. A step is a withdrawal when the next interval goes on at the old rate, a rate change when it goes on
-   * at the rate the first deviation implies.
+   * On sparse readings a faster (or slower) use also leaves the level off its prediction. A step is an event
+   * when the next interval goes on at the old rate, a rate change when it goes on at the rate the first
+   * deviation implies (a rate that still means use: a reading above the last one is a delivery).
    */
   private looksLikeRateChange(first: TimedVolume, prev: TimedVolume, volume: number, dt: number): boolean {
     const s = this.s;
@@ -280,8 +295,12 @@ export class Estimator implements RateEstimator {
     const refillSign = s.filling ? -1 : 1;
     const firstDt = (first.time - s.lastTime!) / DAY_MS;
     const deviation = first.volume - (s.v - s.r * firstDt);
-    if (Math.sign(deviation) === refillSign || firstDt <= 0) return false;
-    const implied = s.r - deviation / firstDt;
+    if (firstDt <= 0) return false;
+    // Above the prediction but not above the last reading: slower use, measured from the last reading (the
+    // filtered level lags the slower use), if the next reading goes on at it.
+    const slower = Math.sign(deviation) === refillSign;
+    const implied = slower ? (lastRecentVolume(s, s.v) - first.volume) / firstDt : s.r - deviation / firstDt;
+    if (slower && implied * refillSign <= 0) return false;
     const oldError = Math.abs(volume - (prev.volume - s.r * dt));
     const newError = Math.abs(volume - (prev.volume - implied * dt));
     return newError < oldError;
