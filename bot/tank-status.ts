@@ -1,7 +1,7 @@
 import { runwayTo } from '../engine/forecast/runway.js';
 import type { Tank as TankGeometry } from '../engine/geometry/index.js';
 import type { RatePoint, TankEventType } from '../engine/rate/index.js';
-import { mapPlanVolumes, planRefillWith, type RefillPlan } from '../engine/refill/planRefill.js';
+import { forecastOf, mapPlanVolumes, planRefillWith, type RefillPlan } from '../engine/refill/planRefill.js';
 import { parseRefillSettings, type RefillSettings } from '../engine/refill/settings.js';
 import type { Result } from '../engine/result.js';
 import { fromLitres, fromMetres, type VolumeUnit } from '../engine/units/index.js';
@@ -294,10 +294,7 @@ function refillPlan(
   return planRefillWith(
     {
       now,
-      volume: point.volume,
-      lastReadingAt: point.time,
-      rate: point.rate,
-      rateSigma: point.rateSigma,
+      ...forecastOf(point),
       capacity,
       filling,
     },

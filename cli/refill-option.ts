@@ -4,6 +4,7 @@ import { readFile } from 'node:fs/promises';
 import { DateTime } from 'luxon';
 import type { RatePoint } from '../engine/rate/index.js';
 import {
+  forecastOf,
   parseRefillSettings,
   planRefill,
   type QuantityIssue,
@@ -64,10 +65,7 @@ export async function refillOption(
   }
   const planned = planRefill({
     now: now ?? point.time,
-    volume: point.volume,
-    lastReadingAt: point.time,
-    rate: point.rate,
-    rateSigma: point.rateSigma,
+    ...forecastOf(point),
     ...(context.capacity !== null ? { capacity: context.capacity } : {}),
     // A filling tank: said with --filling, or a rate whose whole ~80% range is below zero.
     filling: context.filling || point.rateHigh < 0,

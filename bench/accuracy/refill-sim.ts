@@ -6,7 +6,7 @@
 import { createRateEstimator, type RatePoint } from '../../engine/rate/index.js';
 import { arrivalDay, startOfDay } from '../../engine/refill/deliveryCalendar.js';
 import { orderQuantity } from '../../engine/refill/orderQuantity.js';
-import { planRefill } from '../../engine/refill/planRefill.js';
+import { forecastOf, planRefill } from '../../engine/refill/planRefill.js';
 import type { RefillSettings } from '../../engine/refill/settings.js';
 import { DAY_MS, type Scenario } from './scenarios.js';
 
@@ -62,10 +62,7 @@ export function plannerPolicy(serviceLevel = 0.95): Policy {
     decide({ now, point, capacity, filling, settings }) {
       const plan = planRefill({
         now,
-        volume: point.volume,
-        lastReadingAt: point.time,
-        rate: point.rate,
-        rateSigma: point.rateSigma,
+        ...forecastOf(point),
         capacity,
         filling,
         settings: { ...settings, serviceLevel },

@@ -10,6 +10,7 @@ export {
 } from './deliveryCalendar.js';
 export { type OrderQuantity, orderQuantity, type QuantityIssue } from './orderQuantity.js';
 export {
+  forecastOf,
   mapPlanVolumes,
   ORDER_BY_WINDOW_DAYS,
   type PlanSizing,

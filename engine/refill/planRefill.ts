@@ -36,6 +36,16 @@ export interface RefillInput {
   settings: RefillSettingsInput;
 }
 
+/** The forecast a plan starts from, taken from a rate point (engine/rate `RatePoint` has these fields). */
+export function forecastOf(point: {
+  time: number;
+  volume: number;
+  rate: number;
+  rateSigma: number;
+}): Pick<RefillInput, 'volume' | 'lastReadingAt' | 'rate' | 'rateSigma'> {
+  return { volume: point.volume, lastReadingAt: point.time, rate: point.rate, rateSigma: point.rateSigma };
+}
+
 export interface RefillPlan {
   verdict: 'order-now' | 'order-by' | 'no-order-needed';
   /** A delivery into an emptying tank, or a pick-up from a filling one. */
