@@ -213,6 +213,13 @@ export class Estimator implements RateEstimator {
     return Math.max(EVENT_Z * Math.sqrt(pr.p00 + R), EVENT_MIN_FRACTION * (s.capacity ?? s.scale));
   }
 
+  /** How far `volume` is beyond the last trusted reading in the refill direction (negative: in the use one). */
+  private riseOverLast(volume: number): number {
+    const s = this.s;
+    const last = lastRecentVolume(s, s.v);
+    return s.filling ? last - volume : volume - last;
+  }
+
   /**
    * Use never fills a tank (nor empties a filling one): on sparse readings, one reading that far beyond the
    * last reading in the refill direction is a delivery (pick-up) whatever the rate. The usual test misses it
@@ -222,13 +229,6 @@ export class Estimator implements RateEstimator {
    * SPARSE_RISE_FRACTION always counts: the noise estimate also holds the rate's misfit, so after a rough
    * start or a rate change it can hide a delivery that only partly made up for days of faster use.
    */
-  /** How far `volume` is beyond the last trusted reading in the refill direction (negative: in the use one). */
-  private riseOverLast(volume: number): number {
-    const s = this.s;
-    const last = lastRecentVolume(s, s.v);
-    return s.filling ? last - volume : volume - last;
-  }
-
   private beyondAnyUse(volume: number, R: number): boolean {
     const s = this.s;
     if (s.dtMean < DENSE_INTERVAL_DAYS) return false;
