@@ -120,8 +120,9 @@ async function plots(suite: Scenario[]): Promise<string[]> {
 }
 
 /**
- * A larger dense set on another seed, never used to tune the estimator: the goals are judged on held-out
- * scenarios "of the same kinds", and the main suite times only a handful of rate changes per sampling interval.
+ * A larger dense set on another seed: the goals are judged on held-out scenarios "of the same kinds", and the
+ * main suite times only a handful of rate changes per sampling interval. Its 24-scenario version (seed 777) was
+ * among the seeds looked into while fixing event detection (Other seeds); the lag was not tuned on it.
  */
 const HELD_OUT_SEED = 777;
 const HELD_OUT_DENSE = 96;
@@ -132,7 +133,8 @@ function heldOutSection(r: FamilyResult): string[] {
     `## Held-out seed: dense (${e.scenarios} scenarios, seed ${HELD_OUT_SEED}, ${r.readings.toLocaleString('en-US')} readings)`,
     '',
     'The dense family generated again with another seed and four times the scenarios (accuracySuite parameters),',
-    'so the lag per sampling interval rests on about 30 rate changes each instead of 7 to 9. Not used for tuning.',
+    'so the lag per sampling interval rests on about 30 rate changes each instead of 7 to 9. The lag was',
+    'not tuned on it; seed 777 was among those looked into while fixing event detection (Other seeds).',
     '',
     `Delivery F1 ${num(e.refillF1)}, withdrawal F1 ${num(e.withdrawalF1)}, rate error ${pct(e.rateError)}, runway error ${pct(e.runwayError)}, rate / runway ~80% range coverage ${pct(e.rateCoverage)} / ${pct(e.runwayCoverage)}.`,
     '',
