@@ -9,6 +9,7 @@ import {
   type TimedVolume,
 } from '../engine/rate/index.js';
 import { isVolumeUnit, toLitres } from '../engine/units/index.js';
+import { BoundedMemo } from './bounded-memo.js';
 import { readingLitres } from './reading-volume.js';
 import type { Store } from './store/index.js';
 import type { RateCacheEntry } from './store/rate-cache.js';
@@ -28,8 +29,7 @@ export interface Series {
 }
 
 /** Built tanks by their stored spec: building tabulates the shape, and a question should not pay for it. */
-const geometries = new Map<string, ReturnType<typeof buildTank>>();
-const GEOMETRY_CACHE_SIZE = 512;
+const geometries = new BoundedMemo<string, ReturnType<typeof buildTank>>(512);
 
 /**
  * A spec's JSON text, kept per frozen spec object (the store shares one between the tanks that repeat it;
@@ -48,14 +48,7 @@ function specText(spec: unknown): string | undefined {
 }
 
 export function geometryOf(spec: unknown): ReturnType<typeof buildTank> {
-  const key = specText(spec) ?? 'undefined';
-  let built = geometries.get(key);
-  if (!built) {
-    built = buildTank(spec);
-    if (geometries.size >= GEOMETRY_CACHE_SIZE) geometries.delete(geometries.keys().next().value!);
-    geometries.set(key, built);
-  }
-  return built;
+  return geometries.get(specText(spec) ?? 'undefined', () => buildTank(spec));
 }
 
 /** Raw readings and deliveries to litres with the tank's current shape; readings it cannot hold are skipped. */

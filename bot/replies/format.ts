@@ -4,6 +4,7 @@
  */
 import { DateTime } from 'luxon';
 import { civilDay } from '../../engine/refill/civilDay.js';
+import { BoundedMemo } from '../bounded-memo.js';
 
 const DAY_MS = 86_400_000;
 
@@ -143,8 +144,7 @@ function inZone(time: number, timeZone: string): { dt: DateTime; note: string } 
 
 /** The texts of `formatDate` by local date and whether it is in the year of `now`: luxon's formatting was a
  * large part of composing a digest, whose rows show a handful of dates again and again. */
-const dateTexts = new Map<string, string>();
-const DATE_TEXTS_SIZE = 4096;
+const dateTexts = new BoundedMemo<string, string>(4096);
 const yearOf = (day: number) => new Date(day * DAY_MS).getUTCFullYear();
 
 /** "Thu 10 Dec" (adds the year when it is not the year of `now`). */
@@ -153,14 +153,7 @@ export function formatDate(time: number, timeZone: string, now = time): string {
   const day = civilDay(time, timeZone);
   const today = civilDay(now, timeZone);
   if (!Number.isFinite(day) || !Number.isFinite(today)) return formatDateLuxon(time, timeZone, now);
-  const key = `${day}|${yearOf(day) === yearOf(today)}`;
-  let text = dateTexts.get(key);
-  if (text === undefined) {
-    text = formatDateLuxon(time, timeZone, now);
-    if (dateTexts.size >= DATE_TEXTS_SIZE) dateTexts.clear();
-    dateTexts.set(key, text);
-  }
-  return text;
+  return dateTexts.get(`${day}|${yearOf(day) === yearOf(today)}`, () => formatDateLuxon(time, timeZone, now));
 }
 
 function formatDateLuxon(time: number, timeZone: string, now: number): string {

@@ -3,6 +3,7 @@
  * `tankStatus` (bot/tank-status.ts) and never from the engine directly. Pure: `now` is an argument.
  */
 import { DateTime } from 'luxon';
+import { BoundedMemo } from '../bounded-memo.js';
 import { formatChange, formatDate, formatDuration, formatPercent, formatWhen } from '../replies/format.js';
 import type { TankStatus } from '../tank-status.js';
 
@@ -53,17 +54,10 @@ function actionWord(status: TankStatus, now: number, zone: string, endOfDay: num
 }
 
 /** The last few answers by zone and instant: a scheduler tick composes every due team's digest at one `now`. */
-const endsOfDay = new Map<string, number>();
+const endsOfDay = new BoundedMemo<string, number>(64);
 
 export function endOfLocalDay(now: number, zone: string): number {
-  const key = `${zone}|${now}`;
-  let end = endsOfDay.get(key);
-  if (end === undefined) {
-    end = DateTime.fromMillis(now, { zone }).endOf('day').toMillis();
-    if (endsOfDay.size >= 64) endsOfDay.clear();
-    endsOfDay.set(key, end);
-  }
-  return end;
+  return endsOfDay.get(`${zone}|${now}`, () => DateTime.fromMillis(now, { zone }).endOf('day').toMillis());
 }
 
 /** Tanks whose plan says order (or book a pick-up) today: the order is due now or before midnight local. */

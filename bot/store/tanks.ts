@@ -1,4 +1,5 @@
 import type Database from 'better-sqlite3';
+import { BoundedMemo } from '../bounded-memo.js';
 import { parseJsonColumn } from './json-column.js';
 import type { NewTank, Tank, TankSettings } from './types.js';
 
@@ -42,8 +43,7 @@ export interface TanksRepo {
  * digest reads every tank of every team, and the figures cache what they derive from these (built shape,
  * validated refill settings) by the object.
  */
-const sharedColumns = new Map<string, unknown>();
-const SHARED_COLUMNS_SIZE = 4096;
+const sharedColumns = new BoundedMemo<string, unknown>(4096);
 
 function deepFreeze<T>(value: T): T {
   if (typeof value === 'object' && value !== null && !Object.isFrozen(value)) {
@@ -54,14 +54,12 @@ function deepFreeze<T>(value: T): T {
 }
 
 function sharedColumn<T>(text: string, fallback: T): T {
-  const known = sharedColumns.get(text);
-  if (known !== undefined) return known as T;
-  const parsed = parseJsonColumn<T | undefined>(text, undefined);
+  const parsed = sharedColumns.get(text, () => {
+    const value = parseJsonColumn<unknown>(text, undefined);
+    return value === undefined ? undefined : deepFreeze(value);
+  });
   // A column that does not parse gets the caller's fallback, which is not shared.
-  if (parsed === undefined) return fallback;
-  if (sharedColumns.size >= SHARED_COLUMNS_SIZE) sharedColumns.clear();
-  sharedColumns.set(text, deepFreeze(parsed));
-  return parsed;
+  return parsed === undefined ? fallback : (parsed as T);
 }
 
 const toTank = ([
