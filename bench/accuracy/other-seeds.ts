@@ -2,6 +2,7 @@
 // changed, the tuning seeds' failing scenarios were looked into (figures pooled over them, never one alone);
 // the check seeds were seen only as totals (12345, 555, 9001) or not at all before the change (4321, 60606).
 import { runMethod } from './evaluate.js';
+import { num, pct } from './figures.js';
 import { missedGoals } from './goals.js';
 import { type FamilySummary, scenarioMetrics, summarise } from './metrics.js';
 import { accuracySuite } from './suite.js';
@@ -24,9 +25,6 @@ export function seedRow(seed: number): SeedRow {
     );
   return { seed: String(seed), dense: of('dense'), manual: of('manual') };
 }
-
-const pct = (x: number) => (Number.isFinite(x) ? `${(100 * x).toFixed(1)}%` : 'n/a');
-const num = (x: number) => (Number.isFinite(x) ? x.toFixed(3) : 'n/a');
 
 /** A markdown table: the goal metrics per seed and which goals each misses. */
 export function otherSeedsTable(rows: SeedRow[]): string {

@@ -1,4 +1,6 @@
 // The refill simulation over a scenario suite, rolled up per family and policy, as a markdown section.
+
+import { pct } from './figures.js';
 import { refillComparisonLines, simulatePolicies } from './refill-compare.js';
 import { fixedPolicy, type Policy, plannerPolicy, type SimOutcome } from './refill-sim.js';
 import type { Scenario } from './scenarios.js';
@@ -69,8 +71,6 @@ function summarise(policy: string, family: string, runs: SimOutcome[]): PolicySu
     meanLevelAtArrival: levels.length > 0 ? levels.reduce((a, b) => a + b, 0) / levels.length : null,
   };
 }
-
-const pct = (x: number | null) => (x === null ? 'n/a' : `${(100 * x).toFixed(1)}%`);
 
 export function refillSimMarkdown({ rows, comparisons }: RefillSimResult): string {
   const lines = [

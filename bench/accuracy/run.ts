@@ -4,6 +4,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { machineNote } from '../harness.js';
 import { evaluate, type FamilyResult, METHODS, runMethod } from './evaluate.js';
+import { num, pct } from './figures.js';
 import { metText } from './goals.js';
 import { type FamilySummary, median } from './metrics.js';
 import { CHECK_SEEDS, otherSeedsTable, seedRow, TUNING_SEEDS } from './other-seeds.js';
@@ -17,8 +18,6 @@ const root = fileURLToPath(new URL('../..', import.meta.url));
 const docs = `${root}docs`;
 const DAY_MS = 86_400_000;
 
-const pct = (x: number) => (Number.isFinite(x) ? `${(100 * x).toFixed(1)}%` : 'n/a');
-const num = (x: number, d = 3) => (Number.isFinite(x) ? x.toFixed(d) : 'n/a');
 const ratio = (a: number, b: number) =>
   Number.isFinite(a) && Number.isFinite(b) && b > 0 ? `${(a / b).toFixed(2)}x` : 'n/a';
 
