@@ -1,6 +1,6 @@
 import type Database from 'better-sqlite3';
 import { createScheduleTables } from '../schedule/schema.js';
-import { RATE_CACHE_SQL, RATE_LEAN_SQL, RATE_SUMMARY_SQL } from './rate-cache.js';
+import { RATE_AS_OF_SQL, RATE_CACHE_SQL, RATE_LEAN_SQL, RATE_SUMMARY_SQL } from './rate-cache.js';
 
 /**
  * The store's schema, as an ordered list: each migration runs once, in order, inside one transaction, and
@@ -143,6 +143,13 @@ export const migrations: Migration[] = [
     name: 'rate cache points and summary in lean forms (faster to parse for a digest); rebuilt once',
     up(db) {
       db.exec(RATE_LEAN_SQL);
+    },
+  },
+  {
+    version: 6,
+    name: 'rate cache instants indexed (a digest walks to the newer readings without reading each state)',
+    up(db) {
+      db.exec(RATE_AS_OF_SQL);
     },
   },
 ];

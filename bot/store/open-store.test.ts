@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { openStore, type Store } from './index.js';
+import { SINCE_CACHE_SQL } from './team-reads.js';
 
 const T0 = Date.UTC(2026, 10, 2, 7, 30);
 const spec = { units: { length: 'in', volume: 'gal' }, shape: 'vertical-cylinder', diameter: 48, length: 72 };
@@ -33,6 +34,14 @@ describe('openStore', () => {
     store = openStore(join(dir, 'bot.sqlite'));
     expect(store.db.pragma('user_version', { simple: true })).toBe(version);
     expect(store.tanks.byCode('console:a', 't4')?.spec).toEqual(spec);
+  });
+
+  it('reads through a memory map, and walks to the readings after each rate cache from its index', () => {
+    expect(store.db.pragma('mmap_size', { simple: true })).toBe(2 ** 30);
+    const plan = store.db.prepare(`EXPLAIN QUERY PLAN ${SINCE_CACHE_SQL}`).all('console:a') as {
+      detail: string;
+    }[];
+    expect(plan[0]?.detail).toMatch(/COVERING INDEX rate_cache_as_of/);
   });
 
   it('makes the first user of a team its admin and later ones members, per team', () => {

@@ -35,6 +35,9 @@ export interface OpenStoreOptions {
   migrations?: Migration[];
 }
 
+/** Largest part of the file read through a memory map (1 GiB: a store of 1,000 teams x 50 tanks is 235 MB). */
+const MMAP_BYTES = 2 ** 30;
+
 /** Opens (or creates) the SQLite file with WAL, foreign keys on, and every migration applied. */
 export function openStore(path: string, options: OpenStoreOptions = {}): Store {
   const db = new Database(path);
@@ -44,6 +47,10 @@ export function openStore(path: string, options: OpenStoreOptions = {}): Store {
     db.pragma('synchronous = FULL');
     db.pragma('foreign_keys = ON');
     db.pragma('busy_timeout = 5000');
+    // Reads through a memory map rather than read() into SQLite's 2 MB page cache: a morning digest reads
+    // every tank's rate-cache row, and at 1,000 teams copying those pages took a fifth of its time (npm run
+    // bench digest). Address space only; SQLite maps no more than the file. Writes still go through the WAL.
+    db.pragma(`mmap_size = ${MMAP_BYTES}`);
     migrate(db, options.migrations ?? migrations);
   } catch (error) {
     db.close();

@@ -85,6 +85,13 @@ export const RATE_SUMMARY_SQL = `
  */
 export const RATE_LEAN_SQL = 'DELETE FROM rate_cache;';
 
+/**
+ * Migration 6: each cache row's instant in an index of its own, so the walk to the readings after it (a
+ * team's digest) reads the index, not the rows: a row holds the whole estimator state (about 2.5 KB, a page
+ * each), and that walk read every one of them.
+ */
+export const RATE_AS_OF_SQL = 'CREATE INDEX rate_cache_as_of ON rate_cache (team_id, tank_id, as_of_time);';
+
 export const RATE_CACHE_SQL = `
   CREATE INDEX readings_series ON readings (team_id, tank_id, time, id, kind, value, unit)
     WHERE deleted_at IS NULL AND status = 'ok';
