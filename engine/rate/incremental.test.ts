@@ -148,6 +148,18 @@ describe('estimator laws', () => {
       { numRuns: 150 },
     );
   });
+
+  it('stays finite on an empty tank of unknown size read again at the same instant', () => {
+    // Found by the resume law above (fast-check seed -88338587): with no capacity and only zero volumes the
+    // scale is 0, and the rate memory's "wanted precision" was 0 / 0.
+    const estimator = createRateEstimator({ filling: false });
+    const t = Date.UTC(2026, 0, 5);
+    for (let i = 0; i < 3; i++) {
+      const p = estimator.addReading(t, 0);
+      expect([p.volume, p.rate, p.rateLow, p.rateHigh, p.rateSigma].every(Number.isFinite)).toBe(true);
+    }
+    expect(isRateEstimatorState(JSON.parse(JSON.stringify(estimator.toJSON())))).toBe(true);
+  });
 });
 
 function createRateEstimatorAfter(
