@@ -6,6 +6,7 @@ import { machineNote } from '../harness.js';
 import { evaluate, type FamilyResult, METHODS, runMethod } from './evaluate.js';
 import { num, pct } from './figures.js';
 import { metText } from './goals.js';
+import { moreManualSeeds, moreManualSeedsMarkdown } from './manual-seeds.js';
 import { type FamilySummary, median } from './metrics.js';
 import { CHECK_SEEDS, otherSeedsTable, seedRow, TUNING_SEEDS } from './other-seeds.js';
 import { lineChartPng, thin } from './plot.js';
@@ -149,6 +150,7 @@ const heldOut = evaluate(
   accuracySuite({ dense: HELD_OUT_DENSE, manual: 0, filling: 0, hard: 0 }, HELD_OUT_SEED),
 ).find((r) => r.family === 'dense');
 const otherSeeds = [...TUNING_SEEDS, ...CHECK_SEEDS].map(seedRow);
+const moreManual = moreManualSeeds();
 const real = backtestRainwater(`${root}../shared/data/real`);
 const images = await plots(suite);
 const seconds = (performance.now() - started) / 1000;
@@ -243,6 +245,7 @@ md.push(
   ]),
   '',
 );
+md.push(...moreManualSeedsMarkdown(moreManual));
 md.push('## Backtest on a real series', '');
 if (real) {
   md.push(
