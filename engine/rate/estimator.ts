@@ -7,7 +7,7 @@
 import { detectChange, resetCusum } from './change.js';
 import { eventTypeFor, pushEvent } from './events.js';
 import { type Prediction, predict, reseedVolume, update } from './kalman.js';
-import { applySmallLogged, registerLogged, takeLogged } from './logged.js';
+import { applySmallLogged, eventsOf, registerLogged, takeLogged } from './logged.js';
 import { copyPoint, type ScratchPoint, scratchPoint, writePoint, writeRejectedPoint } from './point.js';
 import { learnProfile, profileAt } from './profile.js';
 import { rateUndoSnapshot, restoreBeforeRateChange, shiftEndingAt } from './rate-undo.js';
@@ -35,6 +35,8 @@ const {
   EVENT_MIN_FRACTION,
   EVENT_Z,
   HUBER_C,
+  LOGGED_LATE_MS,
+  MANUAL_INTERVAL_DAYS,
   MAX_PENDING,
   MAX_VOLUME_LITRES,
   RATE_MEMORY_DAYS,
@@ -53,7 +55,7 @@ export class Estimator implements RateEstimator {
   constructor(private readonly s: RateEstimatorState) {}
 
   get events(): readonly TankEvent[] {
-    return this.s.events;
+    return eventsOf(this.s);
   }
   get changes(): readonly RateChange[] {
     return this.s.changes;
@@ -94,10 +96,13 @@ export class Estimator implements RateEstimator {
     let e = volume - pr.v;
     let deviant = Math.abs(e) > this.threshold(pr, R) || this.beyondAnyUse(volume, R);
 
+    const manual = s.dtMean >= MANUAL_INTERVAL_DAYS;
     if (s.undo) {
       const undo = s.undo;
       s.undo = null;
-      if (deviant && revertIfTypo(s, undo, time, volume, R)) {
+      // A manual dip always weighs the kept rise against a typo: with the rate unsure it may not be deviant.
+      const kept = manual ? pr.v : s.v;
+      if ((deviant || manual) && revertIfTypo(s, undo, time, volume, R, kept, manual)) {
         pr = this.predictTo(time, R);
         e = volume - pr.v;
         deviant = Math.abs(e) > this.threshold(pr, R);
@@ -140,6 +145,7 @@ export class Estimator implements RateEstimator {
       return this.pendingPoint(time, pr, deviationReason(volume, pr.v));
     }
     e = applySmallLogged(s, time, e, pr);
+    if (manual && s.count === 2) s.undo = undoSnapshot(s, time, volume);
     this.filterUpdate(time, volume, e, pr, R);
     return this.point(time, undefined);
   }
@@ -375,11 +381,16 @@ export class Estimator implements RateEstimator {
       last !== undefined &&
       last.end >= s.lastTime! &&
       last.volume + Math.abs(shift) <= (s.capacity ?? s.scale);
-    const mergeWindow = adjoining
-      ? Number.POSITIVE_INFINITY
-      : s.dtMean < DENSE_INTERVAL_DAYS
-        ? Math.max(2 * 3_600_000, 2 * s.dtMean * DAY_MS)
-        : 0;
+    // A logged delivery is another truck than a logged event, or than one the readings showed more than
+    // LOGGED_LATE_MS before its logged time (`start`).
+    const anotherTruck = logged && last !== undefined && (last.logged || start - last.end > LOGGED_LATE_MS);
+    const mergeWindow = anotherTruck
+      ? Number.NEGATIVE_INFINITY
+      : adjoining
+        ? Number.POSITIVE_INFINITY
+        : s.dtMean < DENSE_INTERVAL_DAYS
+          ? Math.max(2 * 3_600_000, 2 * s.dtMean * DAY_MS)
+          : 0;
     pushEvent(
       s.events,
       { type: eventTypeFor(shift, s.filling), start, end, volume: Math.abs(shift), logged },

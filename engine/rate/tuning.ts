@@ -26,6 +26,17 @@ export const DENSE_INTERVAL_DAYS = 2 / 24;
  * accuracy bench (0.05-0.15 score alike over 13 seeds).
  */
 export const SPARSE_RISE_FRACTION = 0.1;
+/**
+ * From this mean sampling interval on, readings are a crew's dips (a day or more apart, at most about two a
+ * day): the checks that weigh the next dip against the one before apply. A 6-hourly sensor is sparse for the
+ * event logic above but not manual.
+ */
+export const MANUAL_INTERVAL_DAYS = 0.5;
+/**
+ * A delivery is logged at most this long after the reading that already showed it (a judgement, not a
+ * measurement): a log entered later is another truck, not the rise seen before it.
+ */
+export const LOGGED_LATE_MS = 12 * 3_600_000;
 /** Deviant readings waited on before a level shift is accepted regardless. */
 export const MAX_PENDING = 8;
 /** z of a two-sided 80% normal interval (1.2816, standard normal table). */

@@ -119,6 +119,8 @@ export interface FilterSnapshot {
 }
 
 export interface UndoState extends FilterSnapshot {
+  /** The noise estimate before the reading kept in doubt. */
+  innovationVar: number;
   time: number;
   volume: number;
   eventCount: number;
