@@ -280,14 +280,29 @@ export class Estimator implements RateEstimator {
       return this.point(time, undefined);
     }
     if ((Math.abs(step) < tolerance && sameSide) || s.pending.length >= MAX_PENDING) {
-      const logged = takeLogged(s, time, volume - pr.v);
-      const start = logged ? logged.time : (s.lastTime! + first.time) / 2;
+      const { seenBy, after } = this.shiftSeenBy(Math.sign(volume - pr.v));
+      // On manual dips the log is due by the dip that showed the shift (a later one is another truck).
+      const logged = takeLogged(s, s.dtMean >= MANUAL_INTERVAL_DAYS ? seenBy.time : time, volume - pr.v);
+      const start = logged ? logged.time : (after + seenBy.time) / 2;
       const end = s.pending.length >= 2 ? prev.time : time;
       s.pending = [];
       this.acceptShift(time, volume, pr, R, start, end, logged !== null);
       return this.point(time, undefined);
     }
     return this.pendingPoint(time, pr, deviationReason(volume, pr.v));
+  }
+
+  /**
+   * The waiting reading that first showed a shift of this `side`, and the time of the reading before it. On
+   * manual dips waiting readings on the other side came before the shift (a low dip, then a delivery): it
+   * started after the last of them. Elsewhere the first waiting reading, after the last trusted one.
+   */
+  private shiftSeenBy(side: number): { seenBy: TimedVolume; after: number } {
+    const s = this.s;
+    const onSide = (p: TimedVolume) =>
+      Math.sign(p.volume - (s.v - (s.r * (p.time - s.lastTime!)) / DAY_MS)) === side;
+    const at = s.dtMean >= MANUAL_INTERVAL_DAYS ? Math.max(0, s.pending.findIndex(onSide)) : 0;
+    return { seenBy: s.pending[at]!, after: at > 0 ? s.pending[at - 1]!.time : s.lastTime! };
   }
 
   /**

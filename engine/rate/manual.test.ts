@@ -196,3 +196,25 @@ describe('the filter kept for the next dip, stored', () => {
     expect(readings.slice(2).map((r) => resumed.addReading(r.time, r.volume))).toEqual(whole.points.slice(2));
   });
 });
+
+describe('where a delivery after a low dip starts', () => {
+  it('is after the low dip, not before it', () => {
+    // Daily dips at 900 L/day on a 20 000 L tank; 2600 L drawn off on day 9.5 (the day-10 dip is low), a
+    // truck of 9000 L on day 11 (no dip that day), then dips on day 12 and a few hours later.
+    const plan = {
+      start: 15_000,
+      at: [...every(1, 0, 10), 12, 12.1, ...every(1, 13, 20)],
+      rate: () => 900,
+      shifts: [
+        { day: 9.5, volume: -2600 },
+        { day: 11, volume: 9000 },
+      ],
+      noise: 100,
+      quantum: 200,
+    };
+    const { events } = analyzeSeries(dips(plan), [], { capacity: 20_000 });
+    const delivery = events.find((e) => e.type === 'delivery')!;
+    expect(delivery.start).toBeGreaterThan(10 * DAY);
+    expect(delivery.start).toBeLessThanOrEqual(12 * DAY);
+  });
+});
