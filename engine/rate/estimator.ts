@@ -200,7 +200,7 @@ export class Estimator implements RateEstimator {
     // random walk the steady-state bandwidth is (q / (R dt))^(1/4) per day.
     // Under heavy noise or very slow use the memory grows (up to RATE_MEMORY_MAX_DAYS) until the rate's
     // steady-state error, about sqrt(2 R dt / T^3), is near RATE_TARGET_PRECISION of the rate.
-    const wanted = RATE_TARGET_PRECISION * Math.abs(s.r) + 1e-6 * s.scale;
+    const wanted = RATE_TARGET_PRECISION * Math.abs(s.r) + 1e-6 * Math.max(s.scale, 1);
     const quiet = Math.cbrt((2 * R * s.dtMean) / (wanted * wanted));
     const memory = Math.max(
       RATE_MEMORY_DAYS,

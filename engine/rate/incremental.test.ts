@@ -190,3 +190,14 @@ describe('stored states', () => {
     expect(whole.events.map((e) => e.type)).toEqual(['withdrawal']);
   });
 });
+
+describe('degenerate starts', () => {
+  it('keeps a finite, storable state when an unsized tank reads 0 L twice at one instant', () => {
+    // Found by the resume law above: a zero scale made the rate memory 0/0.
+    const estimator = createRateEstimator({});
+    for (let i = 0; i < 3; i++) estimator.addReading(Date.UTC(2026, 0, 5), 0);
+    const state = JSON.parse(JSON.stringify(estimator.toJSON())) as RateEstimatorState;
+    expect(isRateEstimatorState(state)).toBe(true);
+    expect(Number.isFinite(state.v) && Number.isFinite(state.r) && Number.isFinite(state.p11)).toBe(true);
+  });
+});
