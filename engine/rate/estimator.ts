@@ -6,6 +6,7 @@
 // is processed once, in order, and its point is never revised.
 import { detectChange, resetCusum } from './change.js';
 import { eventTypeFor, pushEvent } from './events.js';
+import { checkIntervalRates, noteLoggedForIntervals } from './interval-rates.js';
 import { type Prediction, predict, reseedVolume, update } from './kalman.js';
 import { applySmallLogged, eventsOf, registerLogged, takeLogged } from './logged.js';
 import { copyPoint, type ScratchPoint, scratchPoint, writePoint, writeRejectedPoint } from './point.js';
@@ -72,6 +73,7 @@ export class Estimator implements RateEstimator {
     const s = this.s;
     if (!Number.isFinite(time) || !(volumeLitres > 0) || !(volumeLitres <= MAX_VOLUME_LITRES)) return;
     registerLogged(s, time, volumeLitres);
+    noteLoggedForIntervals(s, time, volumeLitres);
   }
 
   addReading(time: number, reading: number): RatePoint {
@@ -91,12 +93,13 @@ export class Estimator implements RateEstimator {
     const volume = reading - profileAt(s, time);
     if (s.lastTime === null) return this.start(time, volume);
     this.trackInterval(time);
+    const manual = s.dtMean >= MANUAL_INTERVAL_DAYS;
+    if (manual) checkIntervalRates(s, time, volume);
     const R = noiseVar(s);
     let pr = this.predictTo(time, R);
     let e = volume - pr.v;
     let deviant = Math.abs(e) > this.threshold(pr, R) || this.beyondAnyUse(volume, R);
 
-    const manual = s.dtMean >= MANUAL_INTERVAL_DAYS;
     if (s.undo) {
       const undo = s.undo;
       s.undo = null;

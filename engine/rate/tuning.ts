@@ -33,6 +33,19 @@ export const SPARSE_RISE_FRACTION = 0.1;
  */
 export const MANUAL_INTERVAL_DAYS = 0.5;
 /**
+ * Manual dips (interval-rates.ts): a change of use when INTERVAL_RATE_AGREE of the last INTERVAL_RATE_KEPT
+ * intervals between dips lie beyond INTERVAL_RATE_Z standard deviations on the same side of the filter's
+ * rate. Intervals shorter than INTERVAL_MIN_DAYS say little against the working-hour swing; the new rate's
+ * variance is widened by INTERVAL_RATE_WIDEN (the intervals share the weekday and working-hour pattern).
+ * Chosen on the accuracy bench (the manual family of bench/accuracy/manual-seeds.ts); 2-3 sd, 3 of 4 and a
+ * widening of 4-16 score alike there.
+ */
+export const INTERVAL_RATE_Z = 2.5;
+export const INTERVAL_RATE_KEPT = 4;
+export const INTERVAL_RATE_AGREE = 3;
+export const INTERVAL_MIN_DAYS = 0.5;
+export const INTERVAL_RATE_WIDEN = 4;
+/**
  * A delivery is logged at most this long after the reading that already showed it (a judgement, not a
  * measurement): a log entered later is another truck, not the rise seen before it.
  */
