@@ -127,18 +127,11 @@ export class Estimator implements RateEstimator {
       this.dropPendingAsSuspect();
     } else if (deviant) {
       const logged = takeLogged(s, time, e);
-      const refillSign = s.filling ? -1 : 1;
       const sparse = s.dtMean >= DENSE_INTERVAL_DAYS;
       // On sparse readings a rise above the prediction and the last reading is a delivery at once (the next
       // reading may still take it back as a typo); one above the prediction only waits for the next reading,
       // which tells slower use from a small delivery (looksLikeRateChange).
-      if (
-        logged ||
-        (sparse &&
-          Math.sign(e) === refillSign &&
-          !unitSlipReason(volume, pr.v) &&
-          this.riseOverLast(volume) > 0)
-      ) {
+      if (logged || (sparse && this.risesAtOnce(volume, pr))) {
         s.undo = logged ? null : undoSnapshot(s, time, volume);
         const start = logged ? logged.time : (s.lastTime + time) / 2;
         this.acceptShift(time, volume, pr, R, start, time, logged !== null);
@@ -222,6 +215,16 @@ export class Estimator implements RateEstimator {
     return Math.max(EVENT_Z * Math.sqrt(pr.p00 + R), EVENT_MIN_FRACTION * (s.capacity ?? s.scale));
   }
 
+  /** Above the prediction and the last trusted reading, and no unit slip off the prediction. */
+  private risesAtOnce(volume: number, pr: Prediction): boolean {
+    const refillSign = this.s.filling ? -1 : 1;
+    return (
+      Math.sign(volume - pr.v) === refillSign &&
+      !unitSlipReason(volume, pr.v) &&
+      this.riseOverLast(volume) > 0
+    );
+  }
+
   /** How far `volume` is beyond the last trusted reading in the refill direction (negative: in the use one). */
   private riseOverLast(volume: number): number {
     const s = this.s;
@@ -271,6 +274,22 @@ export class Estimator implements RateEstimator {
   private continuePending(time: number, volume: number, pr: Prediction, R: number): ScratchPoint {
     const s = this.s;
     const prev = s.pending[s.pending.length - 1]!;
+    // Manual dips: one that also rises above the waiting dip before it is a delivery at once, as with none
+    // waiting. Those waiting were the low side (faster use, a withdrawal, a typo); left waiting, a next dip
+    // back near the old line would take them and the delivery for typos together.
+    const refillSign = s.filling ? -1 : 1;
+    if (
+      s.dtMean >= MANUAL_INTERVAL_DAYS &&
+      (volume - prev.volume) * refillSign > 0 &&
+      this.risesAtOnce(volume, pr)
+    ) {
+      this.dropPendingAsSuspect();
+      const logged = takeLogged(s, time, volume - pr.v);
+      s.undo = logged ? null : undoSnapshot(s, time, volume);
+      const start = logged ? logged.time : (prev.time + time) / 2;
+      this.acceptShift(time, volume, pr, R, start, time, logged !== null);
+      return this.point(time, undefined);
+    }
     s.pending.push({ time, volume });
     const dt = (time - prev.time) / DAY_MS;
     const step = volume - (prev.volume - s.r * dt);

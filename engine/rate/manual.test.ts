@@ -219,27 +219,33 @@ describe('where a delivery after a low dip starts', () => {
   });
 });
 
+/**
+ * A 1000 L tank dipped every 2.33 days at 33 L/day, then 110 L/day from day 30; a truck fills it to 850 L a
+ * day after it falls below 300 L, so from day 30 nearly every other interval holds a delivery.
+ */
+function tripledUse() {
+  const rate = (day: number) => (day < 30 ? 33 : 110);
+  const shifts: { day: number; volume: number }[] = [];
+  let level = 900;
+  let due: number | null = null;
+  for (let step = 1; step <= 7000; step++) {
+    const day = step / 100;
+    level -= rate(day) / 100;
+    if (due === null && level < 300) due = day + 1;
+    if (due !== null && day >= due) {
+      shifts.push({ day, volume: 850 - level });
+      level = 850;
+      due = null;
+    }
+  }
+  const at = Array.from({ length: 30 }, (_, k) => Math.round(k * 233) / 100);
+  const plan = { start: 900, at, rate, shifts, noise: 3, quantum: 10.6 };
+  return { plan, shifts, at, ...analyzeSeries(dips(plan), [], { capacity: 1000 }) };
+}
+
 describe('a change of use on manual dips', () => {
   it('is learnt from the drops between dips when deliveries keep cutting them', () => {
-    // A 1000 L tank dipped every 2.33 days at 33 L/day, then 110 L/day from day 30; a truck fills it to
-    // 850 L a day after it falls below 300 L, so from day 30 nearly every other interval holds a delivery.
-    const rate = (day: number) => (day < 30 ? 33 : 110);
-    const shifts: { day: number; volume: number }[] = [];
-    let level = 900;
-    let due: number | null = null;
-    for (let step = 1; step <= 7000; step++) {
-      const day = step / 100;
-      level -= rate(day) / 100;
-      if (due === null && level < 300) due = day + 1;
-      if (due !== null && day >= due) {
-        shifts.push({ day, volume: 850 - level });
-        level = 850;
-        due = null;
-      }
-    }
-    const at = Array.from({ length: 30 }, (_, k) => Math.round(k * 233) / 100);
-    const plan = { start: 900, at, rate, shifts, noise: 3, quantum: 10.6 };
-    const { events, points } = analyzeSeries(dips(plan), [], { capacity: 1000 });
+    const { shifts, at, events, points } = tripledUse();
     for (const p of points.filter((x) => x.time >= 45 * DAY)) expect(Math.abs(p.rate - 110)).toBeLessThan(16);
     // Every truck from day 40 that a dip can show (the last one comes after the last dip) is one event.
     const trucks = shifts.filter((x) => x.day > 40 && x.day < at[at.length - 1]!);
@@ -248,5 +254,18 @@ describe('a change of use on manual dips', () => {
     for (const [k, t] of trucks.entries()) {
       expect(Math.abs(found[k]!.start - t.day * DAY)).toBeLessThan(2.33 * DAY);
     }
+  });
+});
+
+describe('a rise after a low dip', () => {
+  it('is a delivery at once, so a next dip near the old line does not take both for typos', () => {
+    // In the tank above, the day-32.6 dip is low (the new use, not yet learnt), the day-35 dip shows the
+    // truck of day 32.75 above the last trusted dip, and the day-37.3 dip falls back near the old line.
+    const { shifts, events } = tripledUse();
+    const truck = shifts.find((x) => x.day > 32 && x.day < 33)!;
+    const found = events.filter(
+      (e) => e.type === 'delivery' && Math.abs(e.start - truck.day * DAY) < 2.33 * DAY,
+    );
+    expect(found).toHaveLength(1);
   });
 });
