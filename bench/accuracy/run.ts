@@ -151,7 +151,8 @@ const heldOut = evaluate(
 ).find((r) => r.family === 'dense');
 const otherSeeds = [...TUNING_SEEDS, ...CHECK_SEEDS].map(seedRow);
 const moreManual = moreManualSeeds();
-const real = backtestRainwater(`${root}../shared/data/real`);
+// A checkout outside the folder that holds ../shared (a git worktree elsewhere) names the real data here.
+const real = backtestRainwater(process.env.TANKRUNWAY_REAL_DATA ?? `${root}../shared/data/real`);
 const images = await plots(suite);
 const seconds = (performance.now() - started) / 1000;
 
