@@ -2,8 +2,9 @@
 // shift interventions for deliveries and bulk withdrawals, a confirmation step that tells a real shift (it
 // persists) from a typo or spike (it does not), and two-sided CUSUM change detection that lets the rate
 // re-learn. Level shifts as interventions: Harvey, Koopman & Penzer, "Messy time series" (1998). CUSUM:
-// E. S. Page, "Continuous inspection schemes", Biometrika 41 (1954). Causal by construction: each reading
-// is processed once, in order, and its point is never revised.
+// E. S. Page, "Continuous inspection schemes", Biometrika 41 (1954). Manual dips, days apart, add a check
+// on the use between consecutive dips (interval-rates.ts). Causal by construction: each reading is
+// processed once, in order, and its point is never revised.
 import { detectChange, resetCusum } from './change.js';
 import { eventTypeFor, pushEvent } from './events.js';
 import { checkIntervalRates, noteLoggedForIntervals } from './interval-rates.js';
@@ -93,7 +94,7 @@ export class Estimator implements RateEstimator {
     const volume = reading - profileAt(s, time);
     if (s.lastTime === null) return this.start(time, volume);
     this.trackInterval(time);
-    const manual = s.dtMean >= MANUAL_INTERVAL_DAYS;
+    const manual = this.isManual();
     if (manual) checkIntervalRates(s, time, volume);
     const R = noiseVar(s);
     let pr = this.predictTo(time, R);
@@ -274,22 +275,7 @@ export class Estimator implements RateEstimator {
   private continuePending(time: number, volume: number, pr: Prediction, R: number): ScratchPoint {
     const s = this.s;
     const prev = s.pending[s.pending.length - 1]!;
-    // Manual dips: one that also rises above the waiting dip before it is a delivery at once, as with none
-    // waiting. Those waiting were the low side (faster use, a withdrawal, a typo); left waiting, a next dip
-    // back near the old line would take them and the delivery for typos together.
-    const refillSign = s.filling ? -1 : 1;
-    if (
-      s.dtMean >= MANUAL_INTERVAL_DAYS &&
-      (volume - prev.volume) * refillSign > 0 &&
-      this.risesAtOnce(volume, pr)
-    ) {
-      this.dropPendingAsSuspect();
-      const logged = takeLogged(s, time, volume - pr.v);
-      s.undo = logged ? null : undoSnapshot(s, time, volume);
-      const start = logged ? logged.time : (prev.time + time) / 2;
-      this.acceptShift(time, volume, pr, R, start, time, logged !== null);
-      return this.point(time, undefined);
-    }
+    if (this.deliveryAfterWaiting(time, volume, prev, pr, R)) return this.point(time, undefined);
     s.pending.push({ time, volume });
     const dt = (time - prev.time) / DAY_MS;
     const step = volume - (prev.volume - s.r * dt);
@@ -304,7 +290,7 @@ export class Estimator implements RateEstimator {
     if ((Math.abs(step) < tolerance && sameSide) || s.pending.length >= MAX_PENDING) {
       const { seenBy, after } = this.shiftSeenBy(Math.sign(volume - pr.v));
       // On manual dips the log is due by the dip that showed the shift (a later one is another truck).
-      const logged = takeLogged(s, s.dtMean >= MANUAL_INTERVAL_DAYS ? seenBy.time : time, volume - pr.v);
+      const logged = takeLogged(s, this.isManual() ? seenBy.time : time, volume - pr.v);
       const start = logged ? logged.time : (after + seenBy.time) / 2;
       const end = s.pending.length >= 2 ? prev.time : time;
       s.pending = [];
@@ -312,6 +298,37 @@ export class Estimator implements RateEstimator {
       return this.point(time, undefined);
     }
     return this.pendingPoint(time, pr, deviationReason(volume, pr.v));
+  }
+
+  /**
+   * Manual dips: a dip that also rises above the waiting dip `prev` before it is a delivery at once, as with
+   * none waiting (the next dip may still take it back as a typo). Those waiting were the low side (faster
+   * use, a withdrawal, a typo) and are set aside; left waiting with the rise, a next dip back near the old
+   * line would take them all for typos, the delivery too. Says whether it took the dip.
+   */
+  private deliveryAfterWaiting(
+    time: number,
+    volume: number,
+    prev: TimedVolume,
+    pr: Prediction,
+    R: number,
+  ): boolean {
+    const s = this.s;
+    const refillSign = s.filling ? -1 : 1;
+    if (!this.isManual() || (volume - prev.volume) * refillSign <= 0 || !this.risesAtOnce(volume, pr)) {
+      return false;
+    }
+    this.dropPendingAsSuspect();
+    const logged = takeLogged(s, time, volume - pr.v);
+    s.undo = logged ? null : undoSnapshot(s, time, volume);
+    const start = logged ? logged.time : (prev.time + time) / 2;
+    this.acceptShift(time, volume, pr, R, start, time, logged !== null);
+    return true;
+  }
+
+  /** A crew's dips (MANUAL_INTERVAL_DAYS): the checks that weigh a dip against the one before apply. */
+  private isManual(): boolean {
+    return this.s.dtMean >= MANUAL_INTERVAL_DAYS;
   }
 
   /**
@@ -323,7 +340,7 @@ export class Estimator implements RateEstimator {
     const s = this.s;
     const onSide = (p: TimedVolume) =>
       Math.sign(p.volume - (s.v - (s.r * (p.time - s.lastTime!)) / DAY_MS)) === side;
-    const at = s.dtMean >= MANUAL_INTERVAL_DAYS ? Math.max(0, s.pending.findIndex(onSide)) : 0;
+    const at = this.isManual() ? Math.max(0, s.pending.findIndex(onSide)) : 0;
     return { seenBy: s.pending[at]!, after: at > 0 ? s.pending[at - 1]!.time : s.lastTime! };
   }
 
