@@ -34,17 +34,23 @@ export function noteLoggedForIntervals(s: RateEstimatorState, time: number, volu
 export function checkIntervalRates(s: RateEstimatorState, time: number, volume: number): boolean {
   const previous = s.previousDip;
   const logged = s.loggedSinceDip;
-  s.previousDip = { time, volume };
   s.loggedSinceDip = 0;
-  if (previous === null) return false;
-  const days = (time - previous.time) / DAY_MS;
-  if (days < INTERVAL_MIN_DAYS) return false;
-  const R = noiseVar(s);
+  if (previous === null) {
+    s.previousDip = { time, volume };
+    return false;
+  }
+  // Kept in place: one object a series, not one a reading.
+  const from = previous.time;
+  const days = (time - from) / DAY_MS;
   const useSign = s.filling ? -1 : 1;
   const use = (previous.volume - volume) * useSign + logged;
+  previous.time = time;
+  previous.volume = volume;
+  if (days < INTERVAL_MIN_DAYS) return false;
+  const R = noiseVar(s);
   if (isRise(s, -use)) return false;
   const intervals = s.dipIntervals;
-  intervals.push({ from: previous.time, days, use });
+  intervals.push({ from, days, use });
   if (intervals.length > INTERVAL_RATE_KEPT) intervals.shift();
 
   // Each interval's rate against the filter's, in standard deviations: two dips' noise over its length,
@@ -71,14 +77,14 @@ export function checkIntervalRates(s: RateEstimatorState, time: number, volume: 
     weighted += (w * i.use) / i.days;
     at = Math.min(at, i.from);
   }
-  const from = s.r;
+  const before = s.r;
   s.r = (weighted / weight) * useSign;
   s.p11 = INTERVAL_RATE_WIDEN / weight;
   s.p01 = 0;
   resetCusum(s);
   s.basisStart = at;
   s.basisCount = s.count - INTERVAL_RATE_AGREE;
-  if (!s.changePending) s.changePending = { at, from, alarm: time, count: s.count };
+  if (!s.changePending) s.changePending = { at, from: before, alarm: time, count: s.count };
   s.dipIntervals = [];
   return true;
 }

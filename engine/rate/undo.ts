@@ -24,7 +24,12 @@ export function restoreFilter(s: RateEstimatorState, snapshot: FilterSnapshot): 
 export function undoSnapshot(s: RateEstimatorState, time: number, volume: number): UndoState {
   const last = s.events[s.events.length - 1];
   return {
-    ...filterSnapshot(s),
+    lastTime: s.lastTime!,
+    v: s.v,
+    r: s.r,
+    p00: s.p00,
+    p01: s.p01,
+    p11: s.p11,
     innovationVar: s.innovationVar,
     time,
     volume,
