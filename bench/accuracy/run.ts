@@ -185,7 +185,7 @@ for (const r of results) {
   );
   md.push('');
   md.push(
-    `Estimator throughput over this family (batch, one core, this run): ${Math.round(r.throughput).toLocaleString('en-US')} readings/s (includes the event and change logic; \`npm run bench\` times it against a bare Kalman loop).`,
+    `Estimator throughput over this family (batch, one core, best of 5 passes in this run): ${Math.round(r.throughput).toLocaleString('en-US')} readings/s (includes the event and change logic; \`npm run bench\` times it against a bare Kalman loop).`,
   );
   md.push('');
   md.push(familyTable(r));
