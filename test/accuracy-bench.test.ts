@@ -2,6 +2,7 @@
 // tolerance, and the generator's truth agrees with its readings.
 import { describe, expect, it } from 'vitest';
 import { leastSquaresBaseline } from '../bench/accuracy/baselines.js';
+import { unseeable } from '../bench/accuracy/manual-seeds.js';
 import { median, scenarioMetrics, startTolerance } from '../bench/accuracy/metrics.js';
 import { accuracySuite } from '../bench/accuracy/suite.js';
 
@@ -66,5 +67,26 @@ describe('event start tolerance', () => {
       (t) => t <= 8 * DAY || t >= 12 * DAY,
     );
     expect(startTolerance(times, delivery, 2 * HOUR)).toBe(2 * DAY);
+  });
+});
+
+describe('deliveries no reading can show', () => {
+  it('counts unlogged ones after the last reading and all but one unlogged between two readings', () => {
+    const [base] = accuracySuite({ dense: 0, manual: 1, filling: 0, hard: 0 }, 99);
+    const delivery = (day: number) => ({
+      type: 'delivery' as const,
+      start: day * DAY,
+      end: day * DAY + 3_600_000,
+      volume: 500,
+    });
+    const scenario = {
+      ...base!,
+      readings: [0, 2, 4].map((day) => ({ time: day * DAY, volume: 800 })),
+      // Days 1 and 1.5 share a gap but one is logged; days 2.5 and 3 share one with neither logged; day 5
+      // comes after the last reading unlogged, day 6 logged.
+      logged: [1.5, 6].map((day) => ({ time: day * DAY + 3_600_000, volume: 500 })),
+      truth: { ...base!.truth, events: [1, 1.5, 2.5, 3, 5, 6].map(delivery) },
+    };
+    expect(unseeable(scenario)).toEqual({ afterLast: 1, beyondOneInAGap: 1 });
   });
 });

@@ -6,6 +6,7 @@ import { machineNote } from '../harness.js';
 import { evaluate, type FamilyResult, METHODS, runMethod } from './evaluate.js';
 import { num, pct } from './figures.js';
 import { metText } from './goals.js';
+import { moreManualSeeds, moreManualSeedsMarkdown } from './manual-seeds.js';
 import { type FamilySummary, median } from './metrics.js';
 import { CHECK_SEEDS, otherSeedsTable, seedRow, TUNING_SEEDS } from './other-seeds.js';
 import { lineChartPng, thin } from './plot.js';
@@ -149,7 +150,9 @@ const heldOut = evaluate(
   accuracySuite({ dense: HELD_OUT_DENSE, manual: 0, filling: 0, hard: 0 }, HELD_OUT_SEED),
 ).find((r) => r.family === 'dense');
 const otherSeeds = [...TUNING_SEEDS, ...CHECK_SEEDS].map(seedRow);
-const real = backtestRainwater(`${root}../shared/data/real`);
+const moreManual = moreManualSeeds();
+// A checkout outside the folder that holds ../shared (a git worktree elsewhere) names the real data here.
+const real = backtestRainwater(process.env.TANKRUNWAY_REAL_DATA ?? `${root}../shared/data/real`);
 const images = await plots(suite);
 const seconds = (performance.now() - started) / 1000;
 
@@ -182,7 +185,7 @@ for (const r of results) {
   );
   md.push('');
   md.push(
-    `Estimator throughput over this family (batch, one core, this run): ${Math.round(r.throughput).toLocaleString('en-US')} readings/s (includes the event and change logic; \`npm run bench\` times it against a bare Kalman loop).`,
+    `Estimator throughput over this family (batch, one core, best of 5 passes in this run): ${Math.round(r.throughput).toLocaleString('en-US')} readings/s (includes the event and change logic; \`npm run bench\` times it against a bare Kalman loop).`,
   );
   md.push('');
   md.push(familyTable(r));
@@ -243,6 +246,7 @@ md.push(
   ]),
   '',
 );
+md.push(...moreManualSeedsMarkdown(moreManual));
 md.push('## Backtest on a real series', '');
 if (real) {
   md.push(

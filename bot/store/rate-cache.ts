@@ -1,5 +1,6 @@
 import type Database from 'better-sqlite3';
 import {
+  eventsOf,
   isRateEstimatorState,
   type RateEstimatorState,
   type RatePoint,
@@ -281,7 +282,7 @@ export function rateCacheRepo(db: Database.Database): RateCacheRepo {
         e.specKey,
         JSON.stringify(e.state),
         pointsText(e.points),
-        summaryText(e.state.version, e.state.events, rows),
+        summaryText(e.state.version, eventsOf(e.state), rows),
       );
     },
     drop: (teamId, tankId) => {

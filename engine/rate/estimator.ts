@@ -2,12 +2,14 @@
 // shift interventions for deliveries and bulk withdrawals, a confirmation step that tells a real shift (it
 // persists) from a typo or spike (it does not), and two-sided CUSUM change detection that lets the rate
 // re-learn. Level shifts as interventions: Harvey, Koopman & Penzer, "Messy time series" (1998). CUSUM:
-// E. S. Page, "Continuous inspection schemes", Biometrika 41 (1954). Causal by construction: each reading
-// is processed once, in order, and its point is never revised.
+// E. S. Page, "Continuous inspection schemes", Biometrika 41 (1954). Manual dips, days apart, add a check
+// on the use between consecutive dips (interval-rates.ts). Causal by construction: each reading is
+// processed once, in order, and its point is never revised.
 import { detectChange, resetCusum } from './change.js';
 import { eventTypeFor, pushEvent } from './events.js';
+import { checkIntervalRates, noteLoggedForIntervals } from './interval-rates.js';
 import { type Prediction, predict, reseedVolume, update } from './kalman.js';
-import { applySmallLogged, registerLogged, takeLogged } from './logged.js';
+import { applySmallLogged, eventsOf, registerLogged, takeLogged } from './logged.js';
 import { copyPoint, type ScratchPoint, scratchPoint, writePoint, writeRejectedPoint } from './point.js';
 import { learnProfile, profileAt } from './profile.js';
 import { rateUndoSnapshot, restoreBeforeRateChange, shiftEndingAt } from './rate-undo.js';
@@ -35,6 +37,8 @@ const {
   EVENT_MIN_FRACTION,
   EVENT_Z,
   HUBER_C,
+  LOGGED_LATE_MS,
+  MANUAL_INTERVAL_DAYS,
   MAX_PENDING,
   MAX_VOLUME_LITRES,
   RATE_MEMORY_DAYS,
@@ -53,7 +57,7 @@ export class Estimator implements RateEstimator {
   constructor(private readonly s: RateEstimatorState) {}
 
   get events(): readonly TankEvent[] {
-    return this.s.events;
+    return eventsOf(this.s);
   }
   get changes(): readonly RateChange[] {
     return this.s.changes;
@@ -70,6 +74,7 @@ export class Estimator implements RateEstimator {
     const s = this.s;
     if (!Number.isFinite(time) || !(volumeLitres > 0) || !(volumeLitres <= MAX_VOLUME_LITRES)) return;
     registerLogged(s, time, volumeLitres);
+    noteLoggedForIntervals(s, time, volumeLitres);
   }
 
   addReading(time: number, reading: number): RatePoint {
@@ -89,6 +94,8 @@ export class Estimator implements RateEstimator {
     const volume = reading - profileAt(s, time);
     if (s.lastTime === null) return this.start(time, volume);
     this.trackInterval(time);
+    const manual = this.isManual();
+    if (manual) checkIntervalRates(s, time, volume);
     const R = noiseVar(s);
     let pr = this.predictTo(time, R);
     let e = volume - pr.v;
@@ -97,7 +104,9 @@ export class Estimator implements RateEstimator {
     if (s.undo) {
       const undo = s.undo;
       s.undo = null;
-      if (deviant && revertIfTypo(s, undo, time, volume, R)) {
+      // A manual dip always weighs the kept rise against a typo: with the rate unsure it may not be deviant.
+      const kept = manual ? pr.v : s.v;
+      if ((deviant || manual) && revertIfTypo(s, undo, time, volume, R, kept, manual)) {
         pr = this.predictTo(time, R);
         e = volume - pr.v;
         deviant = Math.abs(e) > this.threshold(pr, R);
@@ -119,18 +128,11 @@ export class Estimator implements RateEstimator {
       this.dropPendingAsSuspect();
     } else if (deviant) {
       const logged = takeLogged(s, time, e);
-      const refillSign = s.filling ? -1 : 1;
       const sparse = s.dtMean >= DENSE_INTERVAL_DAYS;
       // On sparse readings a rise above the prediction and the last reading is a delivery at once (the next
       // reading may still take it back as a typo); one above the prediction only waits for the next reading,
       // which tells slower use from a small delivery (looksLikeRateChange).
-      if (
-        logged ||
-        (sparse &&
-          Math.sign(e) === refillSign &&
-          !unitSlipReason(volume, pr.v) &&
-          this.riseOverLast(volume) > 0)
-      ) {
+      if (logged || (sparse && this.risesAtOnce(volume, pr))) {
         s.undo = logged ? null : undoSnapshot(s, time, volume);
         const start = logged ? logged.time : (s.lastTime + time) / 2;
         this.acceptShift(time, volume, pr, R, start, time, logged !== null);
@@ -140,6 +142,7 @@ export class Estimator implements RateEstimator {
       return this.pendingPoint(time, pr, deviationReason(volume, pr.v));
     }
     e = applySmallLogged(s, time, e, pr);
+    if (manual && s.count === 2) s.undo = undoSnapshot(s, time, volume);
     this.filterUpdate(time, volume, e, pr, R);
     return this.point(time, undefined);
   }
@@ -214,6 +217,16 @@ export class Estimator implements RateEstimator {
     return Math.max(EVENT_Z * Math.sqrt(pr.p00 + R), EVENT_MIN_FRACTION * (s.capacity ?? s.scale));
   }
 
+  /** Above the prediction and the last trusted reading, and no unit slip off the prediction. */
+  private risesAtOnce(volume: number, pr: Prediction): boolean {
+    const refillSign = this.s.filling ? -1 : 1;
+    return (
+      Math.sign(volume - pr.v) === refillSign &&
+      !unitSlipReason(volume, pr.v) &&
+      this.riseOverLast(volume) > 0
+    );
+  }
+
   /** How far `volume` is beyond the last trusted reading in the refill direction (negative: in the use one). */
   private riseOverLast(volume: number): number {
     const s = this.s;
@@ -263,6 +276,7 @@ export class Estimator implements RateEstimator {
   private continuePending(time: number, volume: number, pr: Prediction, R: number): ScratchPoint {
     const s = this.s;
     const prev = s.pending[s.pending.length - 1]!;
+    if (this.deliveryAfterWaiting(time, volume, prev, pr, R)) return this.point(time, undefined);
     s.pending.push({ time, volume });
     const dt = (time - prev.time) / DAY_MS;
     const step = volume - (prev.volume - s.r * dt);
@@ -275,14 +289,60 @@ export class Estimator implements RateEstimator {
       return this.point(time, undefined);
     }
     if ((Math.abs(step) < tolerance && sameSide) || s.pending.length >= MAX_PENDING) {
-      const logged = takeLogged(s, time, volume - pr.v);
-      const start = logged ? logged.time : (s.lastTime! + first.time) / 2;
+      const { seenBy, after } = this.shiftSeenBy(Math.sign(volume - pr.v));
+      // On manual dips the log is due by the dip that showed the shift (a later one is another truck).
+      const logged = takeLogged(s, this.isManual() ? seenBy.time : time, volume - pr.v);
+      const start = logged ? logged.time : (after + seenBy.time) / 2;
       const end = s.pending.length >= 2 ? prev.time : time;
       s.pending = [];
       this.acceptShift(time, volume, pr, R, start, end, logged !== null);
       return this.point(time, undefined);
     }
     return this.pendingPoint(time, pr, deviationReason(volume, pr.v));
+  }
+
+  /**
+   * Manual dips: a dip that also rises above the waiting dip `prev` before it is a delivery at once, as with
+   * none waiting (the next dip may still take it back as a typo). Those waiting were the low side (faster
+   * use, a withdrawal, a typo) and are set aside; left waiting with the rise, a next dip back near the old
+   * line would take them all for typos, the delivery too. Says whether it took the dip.
+   */
+  private deliveryAfterWaiting(
+    time: number,
+    volume: number,
+    prev: TimedVolume,
+    pr: Prediction,
+    R: number,
+  ): boolean {
+    const s = this.s;
+    const refillSign = s.filling ? -1 : 1;
+    if (!this.isManual() || (volume - prev.volume) * refillSign <= 0 || !this.risesAtOnce(volume, pr)) {
+      return false;
+    }
+    this.dropPendingAsSuspect();
+    const logged = takeLogged(s, time, volume - pr.v);
+    s.undo = logged ? null : undoSnapshot(s, time, volume);
+    const start = logged ? logged.time : (prev.time + time) / 2;
+    this.acceptShift(time, volume, pr, R, start, time, logged !== null);
+    return true;
+  }
+
+  /** A crew's dips (MANUAL_INTERVAL_DAYS): the checks that weigh a dip against the one before apply. */
+  private isManual(): boolean {
+    return this.s.dtMean >= MANUAL_INTERVAL_DAYS;
+  }
+
+  /**
+   * The waiting reading that first showed a shift of this `side`, and the time of the reading before it. On
+   * manual dips waiting readings on the other side came before the shift (a low dip, then a delivery): it
+   * started after the last of them. Elsewhere the first waiting reading, after the last trusted one.
+   */
+  private shiftSeenBy(side: number): { seenBy: TimedVolume; after: number } {
+    const s = this.s;
+    const onSide = (p: TimedVolume) =>
+      Math.sign(p.volume - (s.v - (s.r * (p.time - s.lastTime!)) / DAY_MS)) === side;
+    const at = this.isManual() ? Math.max(0, s.pending.findIndex(onSide)) : 0;
+    return { seenBy: s.pending[at]!, after: at > 0 ? s.pending[at - 1]!.time : s.lastTime! };
   }
 
   /**
@@ -376,11 +436,16 @@ export class Estimator implements RateEstimator {
       last !== undefined &&
       last.end >= s.lastTime! &&
       last.volume + Math.abs(shift) <= (s.capacity ?? s.scale);
-    const mergeWindow = adjoining
-      ? Number.POSITIVE_INFINITY
-      : s.dtMean < DENSE_INTERVAL_DAYS
-        ? Math.max(2 * 3_600_000, 2 * s.dtMean * DAY_MS)
-        : 0;
+    // A logged delivery is another truck than a logged event, or than one the readings showed more than
+    // LOGGED_LATE_MS before its logged time (`start`).
+    const anotherTruck = logged && last !== undefined && (last.logged || start - last.end > LOGGED_LATE_MS);
+    const mergeWindow = anotherTruck
+      ? Number.NEGATIVE_INFINITY
+      : adjoining
+        ? Number.POSITIVE_INFINITY
+        : s.dtMean < DENSE_INTERVAL_DAYS
+          ? Math.max(2 * 3_600_000, 2 * s.dtMean * DAY_MS)
+          : 0;
     pushEvent(
       s.events,
       { type: eventTypeFor(shift, s.filling), start, end, volume: Math.abs(shift), logged },

@@ -32,17 +32,21 @@ export function pushEvent(events: TankEvent[], event: TankEvent, mergeWindowMs: 
   events.push(event);
 }
 
-/** Index of an unlogged event of `type` within `windowMs` of `time`, latest first, or -1. */
+/**
+ * Index of an unlogged event of `type` that starts at most `beforeMs` after `time` and ends at most
+ * `afterMs` before it, latest first, or -1.
+ */
 export function findNearbyEvent(
   events: readonly TankEvent[],
   type: TankEventType,
   time: number,
-  windowMs: number,
+  beforeMs: number,
+  afterMs: number,
 ): number {
   for (let i = events.length - 1; i >= 0; i--) {
     const e = events[i]!;
-    if (e.end < time - windowMs) return -1;
-    if (e.type === type && !e.logged && e.start <= time + windowMs) return i;
+    if (e.end < time - afterMs) return -1;
+    if (e.type === type && !e.logged && e.start <= time + beforeMs) return i;
   }
   return -1;
 }

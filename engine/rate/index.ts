@@ -32,6 +32,7 @@ export function createRateEstimator(options?: RateOptions): RateEstimator {
 }
 
 export { pointAt, pointsOf, type SeriesColumns } from './columns.js';
+export { eventsOf } from './logged.js';
 export { RATE_STATE_VERSION } from './state.js';
 export { isRateEstimatorState } from './state-check.js';
 

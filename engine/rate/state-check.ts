@@ -20,12 +20,14 @@ const NUMBERS = [
   'basisStart',
   'basisCount',
   'dailyProfileSum',
+  'loggedSinceDip',
 ] as const;
 const ARRAYS = [
   'recentTimes',
   'recentVolumes',
   'pending',
   'loggedPending',
+  'dipIntervals',
   'events',
   'changes',
   'suspects',
@@ -41,11 +43,31 @@ export function isRateEstimatorState(value: unknown): value is RateEstimatorStat
   if (!ARRAYS.every((k) => Array.isArray(s[k]))) return false;
   if (!Array.isArray(s.dailyProfile) || s.dailyProfile.length !== 24) return false;
   if (!s.dailyProfile.every((x) => Number.isFinite(x))) return false;
+  if (!(s.previousDip === null || isTimedVolume(s.previousDip))) return false;
+  if (!(s.undo === null || isUndo(s.undo))) return false;
   if (!(s.rateUndo === null || isRateUndo(s.rateUndo))) return false;
   return (s.recentTimes as unknown[]).length === (s.recentVolumes as unknown[]).length;
 }
 
 const UNDO_NUMBERS = ['lastTime', 'v', 'r', 'p00', 'p01', 'p11', 'innovationVar', 'basisStart', 'basisCount'];
+
+function isTimedVolume(value: unknown): boolean {
+  if (typeof value !== 'object' || value === null) return false;
+  const v = value as Record<string, unknown>;
+  return Number.isFinite(v.time) && Number.isFinite(v.volume);
+}
+
+/** The filter kept after a rise (undo.ts): its numbers finite, its event count a count. */
+const RISE_UNDO_NUMBERS = ['lastTime', 'v', 'r', 'p00', 'p01', 'p11', 'innovationVar', 'time', 'volume'];
+
+function isUndo(value: unknown): boolean {
+  if (typeof value !== 'object' || value === null) return false;
+  const u = value as Record<string, unknown>;
+  if (!RISE_UNDO_NUMBERS.every((k) => typeof u[k] === 'number' && Number.isFinite(u[k]))) return false;
+  if (!(typeof u.eventCount === 'number' && Number.isInteger(u.eventCount) && u.eventCount >= 0))
+    return false;
+  return u.previousEvent === null || typeof u.previousEvent === 'object';
+}
 
 function isRateUndo(value: unknown): boolean {
   if (typeof value !== 'object' || value === null) return false;

@@ -3,9 +3,11 @@ import type { RateEstimatorState, RateOptions } from './types.js';
 
 /**
  * Bumped whenever the state's shape or meaning changes (2: recent readings kept for refits; 3: daily profile;
- * 4: its running sum; 5: the filter before a rate change, kept one reading).
+ * 4: its running sum; 5: the filter before a rate change, kept one reading; 6: the noise estimate in the
+ * filter kept after a rise, which manual dips also keep after their first interval, and the intervals
+ * between manual dips).
  */
-export const RATE_STATE_VERSION = 5;
+export const RATE_STATE_VERSION = 6;
 
 export function initialState(options: RateOptions = {}): RateEstimatorState {
   const capacity = options.capacity !== undefined && options.capacity > 0 ? options.capacity : null;
@@ -37,6 +39,9 @@ export function initialState(options: RateOptions = {}): RateEstimatorState {
     undo: null,
     rateUndo: null,
     loggedPending: [],
+    previousDip: null,
+    loggedSinceDip: 0,
+    dipIntervals: [],
     changePending: null,
     events: [],
     changes: [],

@@ -26,6 +26,30 @@ export const DENSE_INTERVAL_DAYS = 2 / 24;
  * accuracy bench (0.05-0.15 score alike over 13 seeds).
  */
 export const SPARSE_RISE_FRACTION = 0.1;
+/**
+ * From this mean sampling interval on, readings are a crew's dips (a day or more apart, at most about two a
+ * day): the checks that weigh the next dip against the one before apply. A 6-hourly sensor is sparse for the
+ * event logic above but not manual.
+ */
+export const MANUAL_INTERVAL_DAYS = 0.5;
+/**
+ * Manual dips (interval-rates.ts): a change of use when INTERVAL_RATE_AGREE of the last INTERVAL_RATE_KEPT
+ * intervals between dips lie beyond INTERVAL_RATE_Z standard deviations on the same side of the filter's
+ * rate. Intervals shorter than INTERVAL_MIN_DAYS say little against the working-hour swing; the new rate's
+ * variance is widened by INTERVAL_RATE_WIDEN (the intervals share the weekday and working-hour pattern).
+ * Chosen on the accuracy bench (the manual family of bench/accuracy/manual-seeds.ts); 2-3 sd, 3 of 4 and a
+ * widening of 4-16 score alike there.
+ */
+export const INTERVAL_RATE_Z = 2.5;
+export const INTERVAL_RATE_KEPT = 4;
+export const INTERVAL_RATE_AGREE = 3;
+export const INTERVAL_MIN_DAYS = 0.5;
+export const INTERVAL_RATE_WIDEN = 4;
+/**
+ * A delivery is logged at most this long after the reading that already showed it (a judgement, not a
+ * measurement): a log entered later is another truck, not the rise seen before it.
+ */
+export const LOGGED_LATE_MS = 12 * 3_600_000;
 /** Deviant readings waited on before a level shift is accepted regardless. */
 export const MAX_PENDING = 8;
 /** z of a two-sided 80% normal interval (1.2816, standard normal table). */

@@ -102,10 +102,21 @@ export interface RateEstimatorState {
   /** Filter state before sparse readings were taken as a rate change, kept one reading in case of a shift. */
   rateUndo: RateChangeUndo | null;
   loggedPending: TimedVolume[];
+  /** Manual dips: the previous dip (trusted or not), litres logged since it, and the recent intervals. */
+  previousDip: TimedVolume | null;
+  loggedSinceDip: number;
+  dipIntervals: DipInterval[];
   changePending: { at: number; from: number; alarm: number; count: number } | null;
   events: TankEvent[];
   changes: RateChange[];
   suspects: SuspectReading[];
+}
+
+/** Use between two consecutive dips with no rise between them: from when, over how many days, litres. */
+export interface DipInterval {
+  from: number;
+  days: number;
+  use: number;
 }
 
 /** The filter as it was at its last trusted reading, kept to go back to. */
@@ -119,6 +130,8 @@ export interface FilterSnapshot {
 }
 
 export interface UndoState extends FilterSnapshot {
+  /** The noise estimate before the reading kept in doubt. */
+  innovationVar: number;
   time: number;
   volume: number;
   eventCount: number;
