@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { RATE_STATE_VERSION, type RateEstimatorState } from '../engine/rate/index.js';
 import { openStore, type Store } from './store/index.js';
 import { type TankStatus, tankStatus } from './tank-status.js';
 
@@ -137,6 +138,39 @@ describe('tankStatus with the rate cache', () => {
     );
     // The comparison is only worth something if the cache was there to resume from.
     expect(resumed).toBeGreaterThanOrEqual(3);
+  });
+
+  it('rebuilds from the readings a cache an older engine wrote instead of resuming it', () => {
+    const tank = store.tanks.add('t', { code: 'OLD', spec }, 'u', T0);
+    const add = (h: number) =>
+      store.readings.add(
+        't',
+        {
+          tankId: tank.id,
+          time: T0 + h * HOUR,
+          kind: 'level',
+          value: Math.round((60 - h / 8 + (h % 24 < 9 ? 0.3 : 0)) * 10) / 10,
+          unit: 'in',
+          rawText: 'r',
+          userId: 'u',
+        },
+        T0,
+      );
+    for (let h = 0; h <= 60; h++) add(h);
+    const now = T0 + 100 * HOUR;
+    tankStatus(store, 't', tank.id, now);
+    const entry = store.rateCache.get('t', tank.id)!;
+    // What version 5 stored: no use part of the daily profile.
+    const { useProfile: _u, useProfileSum: _s, ...rest } = store.rateCache.state('t', tank.id)!;
+    const old = { ...rest, version: 5 } as unknown as RateEstimatorState;
+    store.rateCache.put('t', tank.id, { ...entry, state: old });
+    expect(store.rateCache.get('t', tank.id)?.summary.version).toBe(5);
+    expect(store.rateCache.state('t', tank.id)).toBeUndefined();
+    add(61);
+    const answered = figures(tankStatus(store, 't', tank.id, now)!);
+    expect(store.rateCache.get('t', tank.id)?.summary.version).toBe(RATE_STATE_VERSION);
+    store.rateCache.drop('t', tank.id);
+    expect(answered).toEqual(figures(tankStatus(store, 't', tank.id, now)!));
   });
 
   it('is dropped by the store when a reading arrives back in time', () => {

@@ -55,6 +55,54 @@ const seriesArb = fc
     return { readings, logged, options: { capacity, filling } };
   });
 
+/**
+ * Dense series (minutes to an hour apart) over days: working-hour use that changes rate once, noise, a
+ * thermal swing and now and then a jump, so the daily profile, its use part and the refit after a change
+ * alarm all run.
+ */
+const denseArb = fc
+  .record({
+    start: fc.double({ min: 3000, max: 9500, noNaN: true }),
+    rate: fc.double({ min: 50, max: 1500, noNaN: true }),
+    factor: fc.constantFrom(0.3, 0.5, 2, 3),
+    changeAt: fc.double({ min: 0.2, max: 0.9, noNaN: true }),
+    share: fc.constantFrom(0, 0.6, 0.85),
+    gapMinutes: fc.constantFrom(5, 15, 60, 90),
+    days: fc.integer({ min: 3, max: 12 }),
+    noise: fc.double({ min: 1, max: 60, noNaN: true }),
+    seed: fc.nat(),
+    capacity: fc.option(fc.constant(10_000), { nil: undefined }),
+  })
+  .map(({ start, rate, factor, changeAt, share, gapMinutes, days, noise, seed, capacity }) => {
+    let s = seed >>> 0;
+    const uniform = () => {
+      s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+      return s / 4294967296;
+    };
+    const t0 = Date.UTC(2026, 0, 5);
+    const step = gapMinutes * 60_000;
+    const n = Math.round((days * 24 * HOUR) / step);
+    let v = start;
+    const readings = Array.from({ length: n }, (_, i) => {
+      const t = t0 + i * step;
+      const hour = (t / HOUR) % 24;
+      const shape = share === 0 ? 1 : hour >= 8 && hour < 17 ? (share * 24) / 9 : ((1 - share) * 24) / 15;
+      v -= ((i >= changeAt * n ? rate * factor : rate) * shape * step) / (24 * HOUR);
+      if (v < 500) v += 6000;
+      const jump = uniform() < 0.01 ? (uniform() - 0.5) * 3000 : 0;
+      const swing = 20 * Math.sin((2 * Math.PI * t) / (24 * HOUR));
+      return { time: t, volume: Math.max(0, v + swing + jump + noise * (uniform() - 0.5)) };
+    });
+    return {
+      readings,
+      logged: [] as { time: number; volume: number }[],
+      options: { capacity, filling: false },
+    };
+  });
+
+/** Either kind of series: the first mostly sparse, the second dense. */
+const anyArb = fc.oneof(seriesArb, denseArb);
+
 /** Feeds readings and logged deliveries in the same merged order analyzeSeries uses. */
 function feed(
   estimator: ReturnType<typeof createRateEstimator>,
@@ -75,7 +123,7 @@ function feed(
 describe('estimator laws', () => {
   it('batch analysis equals reading-by-reading use', () => {
     fc.assert(
-      fc.property(seriesArb, ({ readings, logged, options }) => {
+      fc.property(anyArb, ({ readings, logged, options }) => {
         const batch = analyzeSeries(readings, logged, options);
         const estimator = createRateEstimator(options);
         const points = feed(estimator, readings, logged);
@@ -108,7 +156,7 @@ describe('estimator laws', () => {
 
   it('resumes exactly from JSON taken mid-series', () => {
     fc.assert(
-      fc.property(seriesArb, fc.nat(), ({ readings, options }, cut) => {
+      fc.property(anyArb, fc.nat(), ({ readings, options }, cut) => {
         const at = cut % readings.length;
         const whole = analyzeSeries(readings, [], options).points;
         const first = createRateEstimator(options);
@@ -125,7 +173,7 @@ describe('estimator laws', () => {
 
   it('is causal: a prefix of the series gives the same points', () => {
     fc.assert(
-      fc.property(seriesArb, fc.nat(), ({ readings, options }, cut) => {
+      fc.property(anyArb, fc.nat(), ({ readings, options }, cut) => {
         const n = 1 + (cut % readings.length);
         const whole = analyzeSeries(readings, [], options).points;
         expect(analyzeSeries(readings.slice(0, n), [], options).points).toEqual(whole.slice(0, n));
@@ -136,7 +184,7 @@ describe('estimator laws', () => {
 
   it('never returns a non-finite rate or volume for finite input', () => {
     fc.assert(
-      fc.property(seriesArb, ({ readings, logged, options }) => {
+      fc.property(anyArb, ({ readings, logged, options }) => {
         for (const p of analyzeSeries(readings, logged, options).points) {
           for (const x of [p.volume, p.rate, p.rateLow, p.rateHigh, p.rateSigma, p.basisDays]) {
             expect(Number.isFinite(x)).toBe(true);
@@ -181,6 +229,9 @@ describe('stored states', () => {
     expect(isRateEstimatorState({ ...state, version: 1 })).toBe(false);
     expect(isRateEstimatorState({ ...state, p11: null })).toBe(false);
     expect(isRateEstimatorState({ ...state, recentTimes: undefined })).toBe(false);
+    expect(isRateEstimatorState({ ...state, useProfile: state.useProfile.slice(1) })).toBe(false);
+    expect(isRateEstimatorState({ ...state, useProfile: [...state.useProfile.slice(1), null] })).toBe(false);
+    expect(isRateEstimatorState({ ...state, useProfileSum: undefined })).toBe(false);
     expect(isRateEstimatorState('{}')).toBe(false);
     expect(() => restoreRateEstimator({ ...state, version: 1 })).toThrow(/rebuild it from the readings/);
   });

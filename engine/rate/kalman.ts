@@ -47,6 +47,29 @@ export function update(s: FilterState, pr: Prediction, innovation: number, noise
   s.p11 = Math.max(pr.p11 - k1 * pr.p01, 0);
 }
 
+/**
+ * Measurement update with observation row H = [1, d]: the reading is the level plus the rate times d (the
+ * use part of the daily profile, days). The same gain formula with H P H' + R as the innovation variance.
+ */
+export function updateShaped(
+  s: FilterState,
+  pr: Prediction,
+  innovation: number,
+  noiseVar: number,
+  d: number,
+): void {
+  const a0 = pr.p00 + d * pr.p01;
+  const a1 = pr.p01 + d * pr.p11;
+  const S = a0 + d * a1 + noiseVar;
+  const k0 = a0 / S;
+  const k1 = a1 / S;
+  s.v = pr.v + k0 * innovation;
+  s.r = s.r + k1 * innovation;
+  s.p00 = pr.p00 - k0 * a0;
+  s.p01 = pr.p01 - k0 * a1;
+  s.p11 = Math.max(pr.p11 - k1 * a1, 0);
+}
+
 /** A level shift (delivery, withdrawal): the volume restarts at `volume`, the rate and its variance carry on. */
 export function reseedVolume(s: FilterState, pr: Prediction, volume: number, noiseVar: number): void {
   s.v = volume;

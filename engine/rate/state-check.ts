@@ -21,6 +21,7 @@ const NUMBERS = [
   'basisCount',
   'dailyProfileSum',
   'loggedSinceDip',
+  'useProfileSum',
 ] as const;
 const ARRAYS = [
   'recentTimes',
@@ -41,13 +42,14 @@ export function isRateEstimatorState(value: unknown): value is RateEstimatorStat
   if (!(s.lastTime === null || Number.isFinite(s.lastTime))) return false;
   if (!NUMBERS.every((k) => typeof s[k] === 'number' && Number.isFinite(s[k]))) return false;
   if (!ARRAYS.every((k) => Array.isArray(s[k]))) return false;
-  if (!Array.isArray(s.dailyProfile) || s.dailyProfile.length !== 24) return false;
-  if (!s.dailyProfile.every((x) => Number.isFinite(x))) return false;
+  if (!isProfile(s.dailyProfile) || !isProfile(s.useProfile)) return false;
   if (!(s.previousDip === null || isTimedVolume(s.previousDip))) return false;
   if (!(s.undo === null || isUndo(s.undo))) return false;
   if (!(s.rateUndo === null || isRateUndo(s.rateUndo))) return false;
   return (s.recentTimes as unknown[]).length === (s.recentVolumes as unknown[]).length;
 }
+
+const isProfile = (p: unknown) => Array.isArray(p) && p.length === 24 && p.every((x) => Number.isFinite(x));
 
 const UNDO_NUMBERS = ['lastTime', 'v', 'r', 'p00', 'p01', 'p11', 'innovationVar', 'basisStart', 'basisCount'];
 

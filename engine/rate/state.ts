@@ -5,9 +5,9 @@ import type { RateEstimatorState, RateOptions } from './types.js';
  * Bumped whenever the state's shape or meaning changes (2: recent readings kept for refits; 3: daily profile;
  * 4: its running sum; 5: the filter before a rate change, kept one reading; 6: the noise estimate in the
  * filter kept after a rise, which manual dips also keep after their first interval, and the intervals
- * between manual dips).
+ * between manual dips; 7: the daily profile's use part).
  */
-export const RATE_STATE_VERSION = 6;
+export const RATE_STATE_VERSION = 7;
 
 export function initialState(options: RateOptions = {}): RateEstimatorState {
   const capacity = options.capacity !== undefined && options.capacity > 0 ? options.capacity : null;
@@ -35,6 +35,8 @@ export function initialState(options: RateOptions = {}): RateEstimatorState {
     recentVolumes: [],
     dailyProfile: new Array(24).fill(0),
     dailyProfileSum: 0,
+    useProfile: new Array(24).fill(0),
+    useProfileSum: 0,
     pending: [],
     undo: null,
     rateUndo: null,

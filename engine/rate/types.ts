@@ -91,10 +91,13 @@ export interface RateEstimatorState {
   /** Trusted readings since the change detector last had no evidence (for a refit on an alarm). */
   recentTimes: number[];
   recentVolumes: number[];
-  /** Dense series: mean deviation of the level by hour of day (UTC), taken out before filtering. */
+  /** Dense series: the level's mean deviation by hour of day (UTC) in litres, taken out before filtering. */
   dailyProfile: number[];
   /** Sum of dailyProfile, kept so the zero-mean profile costs O(1) per reading. */
   dailyProfileSum: number;
+  /** The deviation's use part per unit rate (days; the rate times it is litres), and its sum. */
+  useProfile: number[];
+  useProfileSum: number;
   /** Deviant readings since the last trusted one, waiting for confirmation. */
   pending: TimedVolume[];
   /** Filter state before an event accepted at once, kept one reading in case it was a typo. */
