@@ -1,18 +1,9 @@
 import { describe, expect, it } from 'vitest';
+import { normals } from '../../test/support/normals.js';
 import { analyzeSeries, createRateEstimator, type TimedVolume } from './index.js';
 
 const DAY = 86_400_000;
 const HOUR = 3_600_000;
-
-/** Deterministic pseudo-random numbers (a linear congruential generator) and Box-Muller normals. */
-function normals(seed: number): () => number {
-  let s = seed >>> 0;
-  const uniform = () => {
-    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
-    return (s + 0.5) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
-}
 
 interface Plan {
   start: number;

@@ -1,6 +1,7 @@
 // Manual readings (a crew's dips, a day or more apart): patterns that failed on generated scenario seeds of
 // the accuracy bench (bench/accuracy), each cut down to the few readings that show it.
 import { describe, expect, it } from 'vitest';
+import { normals } from '../../test/support/normals.js';
 import {
   analyzeSeries,
   createRateEstimator,
@@ -46,16 +47,6 @@ function dips(plan: DipPlan): TimedVolume[] {
 /** The dips with `by` litres added to the one on `day` (a typo). */
 function typo(readings: TimedVolume[], day: number, by: number): TimedVolume[] {
   return readings.map((r) => (r.time === day * DAY ? { time: r.time, volume: r.volume + by } : r));
-}
-
-/** Deterministic normals (a linear congruential generator and Box-Muller): the dip-to-dip noise of a crew. */
-function normals(seed: number): () => number {
-  let s = seed >>> 0;
-  const uniform = () => {
-    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
-    return (s + 0.5) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
 }
 
 /** Days from `from` to `to` every `step` days. */
