@@ -76,6 +76,15 @@ afterAll(() => {
   rmSync(dir, { recursive: true, force: true });
 });
 
+/** A level reading in inches on team 't', `hours` after T0. */
+function addLevel(tankId: number, hours: number, inches: number, rawText = 'r'): void {
+  store.readings.add(
+    't',
+    { tankId, time: T0 + hours * HOUR, kind: 'level', value: inches, unit: 'in', rawText, userId: 'u' },
+    T0,
+  );
+}
+
 describe('tankStatus with the rate cache', () => {
   it('says exactly what a computation from scratch says, after any sequence of changes', () => {
     let n = 0;
@@ -91,19 +100,7 @@ describe('tankStatus with the rate cache', () => {
           for (const o of [...ops, { kind: 'ask' as const }, ...more]) {
             if (o.kind === 'read') {
               const value = Math.round(o.level * 10) / 10;
-              store.readings.add(
-                't',
-                {
-                  tankId: tank.id,
-                  time: T0 + o.hours * HOUR,
-                  kind: 'level',
-                  value,
-                  unit: 'in',
-                  rawText: `r ${value}`,
-                  userId: 'u',
-                },
-                T0,
-              );
+              addLevel(tank.id, o.hours, value, `r ${value}`);
             } else if (o.kind === 'deliver') {
               store.deliveries.add(
                 't',
@@ -143,19 +140,7 @@ describe('tankStatus with the rate cache', () => {
   it('rebuilds from the readings a cache an older engine wrote instead of resuming it', () => {
     const tank = store.tanks.add('t', { code: 'OLD', spec }, 'u', T0);
     const add = (h: number) =>
-      store.readings.add(
-        't',
-        {
-          tankId: tank.id,
-          time: T0 + h * HOUR,
-          kind: 'level',
-          value: Math.round((60 - h / 8 + (h % 24 < 9 ? 0.3 : 0)) * 10) / 10,
-          unit: 'in',
-          rawText: 'r',
-          userId: 'u',
-        },
-        T0,
-      );
+      addLevel(tank.id, h, Math.round((60 - h / 8 + (h % 24 < 9 ? 0.3 : 0)) * 10) / 10);
     for (let h = 0; h <= 60; h++) add(h);
     const now = T0 + 100 * HOUR;
     tankStatus(store, 't', tank.id, now);
@@ -175,20 +160,7 @@ describe('tankStatus with the rate cache', () => {
 
   it('is dropped by the store when a reading arrives back in time', () => {
     const tank = store.tanks.add('t', { code: 'BACK', spec }, 'u', T0);
-    const add = (h: number) =>
-      store.readings.add(
-        't',
-        {
-          tankId: tank.id,
-          time: T0 + h * HOUR,
-          kind: 'level',
-          value: 50 - h / 10,
-          unit: 'in',
-          rawText: 'r',
-          userId: 'u',
-        },
-        T0,
-      );
+    const add = (h: number) => addLevel(tank.id, h, 50 - h / 10);
     add(0);
     add(10);
     tankStatus(store, 't', tank.id, T0 + 20 * HOUR);

@@ -40,7 +40,7 @@ export function isRateEstimatorState(value: unknown): value is RateEstimatorStat
   if (s.version !== RATE_STATE_VERSION || typeof s.filling !== 'boolean') return false;
   if (!(s.capacity === null || (typeof s.capacity === 'number' && s.capacity > 0))) return false;
   if (!(s.lastTime === null || Number.isFinite(s.lastTime))) return false;
-  if (!NUMBERS.every((k) => typeof s[k] === 'number' && Number.isFinite(s[k]))) return false;
+  if (!allFinite(s, NUMBERS)) return false;
   if (!ARRAYS.every((k) => Array.isArray(s[k]))) return false;
   if (!isProfile(s.dailyProfile) || !isProfile(s.useProfile)) return false;
   if (!(s.previousDip === null || isTimedVolume(s.previousDip))) return false;
@@ -48,6 +48,9 @@ export function isRateEstimatorState(value: unknown): value is RateEstimatorStat
   if (!(s.rateUndo === null || isRateUndo(s.rateUndo))) return false;
   return (s.recentTimes as unknown[]).length === (s.recentVolumes as unknown[]).length;
 }
+
+const allFinite = (u: Record<string, unknown>, keys: readonly string[]) =>
+  keys.every((k) => typeof u[k] === 'number' && Number.isFinite(u[k]));
 
 const isProfile = (p: unknown) => Array.isArray(p) && p.length === 24 && p.every((x) => Number.isFinite(x));
 
@@ -62,20 +65,25 @@ function isTimedVolume(value: unknown): boolean {
 /** The filter kept after a rise (undo.ts): its numbers finite, its event count a count. */
 const RISE_UNDO_NUMBERS = ['lastTime', 'v', 'r', 'p00', 'p01', 'p11', 'innovationVar', 'time', 'volume'];
 
-function isUndo(value: unknown): boolean {
-  if (typeof value !== 'object' || value === null) return false;
+/** An object whose `numbers` are finite and whose `count` is a count, or null. */
+function withNumbersAndCount(
+  value: unknown,
+  numbers: readonly string[],
+  count: string,
+): Record<string, unknown> | null {
+  if (typeof value !== 'object' || value === null) return null;
   const u = value as Record<string, unknown>;
-  if (!RISE_UNDO_NUMBERS.every((k) => typeof u[k] === 'number' && Number.isFinite(u[k]))) return false;
-  if (!(typeof u.eventCount === 'number' && Number.isInteger(u.eventCount) && u.eventCount >= 0))
-    return false;
-  return u.previousEvent === null || typeof u.previousEvent === 'object';
+  if (!allFinite(u, numbers)) return null;
+  const n = u[count];
+  return typeof n === 'number' && Number.isInteger(n) && n >= 0 ? u : null;
+}
+
+function isUndo(value: unknown): boolean {
+  const u = withNumbersAndCount(value, RISE_UNDO_NUMBERS, 'eventCount');
+  return u !== null && (u.previousEvent === null || typeof u.previousEvent === 'object');
 }
 
 function isRateUndo(value: unknown): boolean {
-  if (typeof value !== 'object' || value === null) return false;
-  const u = value as Record<string, unknown>;
-  if (!UNDO_NUMBERS.every((k) => typeof u[k] === 'number' && Number.isFinite(u[k]))) return false;
-  if (!(typeof u.changeCount === 'number' && Number.isInteger(u.changeCount) && u.changeCount >= 0))
-    return false;
-  return Array.isArray(u.readings) && u.readings.length > 0;
+  const u = withNumbersAndCount(value, UNDO_NUMBERS, 'changeCount');
+  return u !== null && Array.isArray(u.readings) && u.readings.length > 0;
 }
