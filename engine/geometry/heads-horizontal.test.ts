@@ -29,7 +29,10 @@ describe('prepared horizontal heads', () => {
           const full = headVolume(h);
           for (const x of [0, 1, ...fractions]) {
             const level = 2 * R * x;
-            expect(Math.abs(fast(level) - horizontalHeadVolume(h, level))).toBeLessThanOrEqual(1e-12 * full);
+            // Both sides round (a few ulps of the full volume each): fast-check seed -646474250 found a tiny
+            // head whose difference was 1e-12 of it plus 1.4e-17, so the bound allows that rounding too.
+            const bound = (1e-12 + 16 * Number.EPSILON) * full;
+            expect(Math.abs(fast(level) - horizontalHeadVolume(h, level))).toBeLessThanOrEqual(bound);
           }
         },
       ),
