@@ -1,7 +1,7 @@
 // Rate changes: two-sided CUSUM on standardised innovations (E. S. Page, "Continuous inspection schemes",
 // Biometrika 41, 1954); on an alarm the level and rate are refit by least squares from the readings after the
 // best single slope split (recent.ts), and the change is reported once the new rate has settled.
-import { bestSplit, fitRecent } from './recent.js';
+import { bestSplit, fitRecent, type LineFit } from './recent.js';
 import * as tuning from './tuning.js';
 import type { RateEstimatorState } from './types.js';
 
@@ -48,6 +48,16 @@ export function detectChange(
   }
 }
 
+/** The filter restarts from a least-squares refit of the readings since a change. */
+export function adoptFit(s: RateEstimatorState, fit: LineFit): void {
+  s.v = fit.v;
+  s.r = fit.r;
+  s.p00 = fit.p00 * RELEARN_WIDEN;
+  s.p01 = fit.p01 * RELEARN_WIDEN;
+  s.p11 = fit.p11 * RELEARN_WIDEN;
+  s.basisCount = s.count - fit.count + 1;
+}
+
 /**
  * After an alarm: refit level and rate by least squares on the readings since the change began; with too
  * few, forget the old rate instead. Returns where the new rate's basis starts.
@@ -57,12 +67,7 @@ function relearn(s: RateEstimatorState, at: number, time: number, R: number): nu
   const from = split ?? at;
   const fit = fitRecent(s, from, time, R);
   if (fit) {
-    s.v = fit.v;
-    s.r = fit.r;
-    s.p00 = fit.p00 * RELEARN_WIDEN;
-    s.p01 = fit.p01 * RELEARN_WIDEN;
-    s.p11 = fit.p11 * RELEARN_WIDEN;
-    s.basisCount = s.count - fit.count + 1;
+    adoptFit(s, fit);
   } else {
     s.p11 += (Math.abs(s.r) + 1e-3 * Math.max(s.scale, 1)) ** 2;
     s.p00 += 4 * R;

@@ -13,7 +13,8 @@ import { applySmallLogged, eventsOf, registerLogged, takeLogged } from './logged
 import { copyPoint, type ScratchPoint, scratchPoint, writePoint, writeRejectedPoint } from './point.js';
 import { fixedProfileAt, hourOfDay, learnProfile, profiled, useProfileAt } from './profile.js';
 import { rateUndoSnapshot, restoreBeforeRateChange, shiftEndingAt } from './rate-undo.js';
-import { clearRecent, lastRecentVolume, pushRecent, trimRecent } from './recent.js';
+import { clearRecent, lastRecentVolume, pushRecent, shiftRecent, trimRecent } from './recent.js';
+import { checkSlope } from './slope-check.js';
 import { noiseVar } from './state.js';
 import { deviationReason, unitSlipReason } from './suspect.js';
 import * as tuning from './tuning.js';
@@ -274,7 +275,8 @@ export class Estimator implements RateEstimator {
     const before = s.r;
     const alpha = Math.max(1 / s.count, 0.02);
     s.innovationVar += alpha * (Math.min(e * e, EVENT_Z * EVENT_Z * S) - s.innovationVar);
-    const dt = (time - s.lastTime!) / DAY_MS;
+    const previous = s.lastTime!;
+    const dt = (time - previous) / DAY_MS;
     const d = this.useShape;
     // R is the mean squared innovation less the level's variance. Right after a refit that variance is the
     // refit's, far above the steady one, and R falls to its floor, so the gain takes the next readings as
@@ -293,6 +295,7 @@ export class Estimator implements RateEstimator {
     // Dense readings are not independent (thermal swing, working hours): each counts for at most its share
     // of the decorrelation time, so a sensor every 5 minutes does not raise an alarm 72 times sooner.
     detectChange(s, time, z, before, Math.min(1, dt / CUSUM_DECORRELATION_DAYS), R);
+    if (profiled(s)) checkSlope(s, time, previous, R);
     trimRecent(s, Math.min(s.cusumPosStart, s.cusumNegStart, time - RECENT_KEEP_DAYS * DAY_MS));
   }
 
@@ -480,8 +483,15 @@ export class Estimator implements RateEstimator {
     );
     reseedVolume(s, pr, level, R);
     s.lastTime = time;
-    resetCusum(s);
-    clearRecent(s);
+    // A delivery moves the level, not the rate: on dense series the evidence of a rate change gathered
+    // before it stands, and the readings kept for a refit move with the level (a change followed by a
+    // delivery was seen a day later). Manual dips start afresh: kept across, their ranges covered less
+    // (82% to 78% on the accuracy bench) and a seed lost delivery F1.
+    if (s.dtMean < DENSE_INTERVAL_DAYS) shiftRecent(s, shift);
+    else {
+      resetCusum(s);
+      clearRecent(s);
+    }
   }
 
   private dropPendingAsSuspect(): void {

@@ -17,6 +17,12 @@ export function clearRecent(s: RecentReadings): void {
   s.recentVolumes.length = 0;
 }
 
+/** A level shift (delivery, withdrawal) moved the level by `shift`: the readings before it move with it. */
+export function shiftRecent(s: RecentReadings, shift: number): void {
+  const v = s.recentVolumes;
+  for (let i = 0; i < v.length; i++) v[i] = v[i]! + shift;
+}
+
 /** The newest trusted reading's volume, or `fallback` when none is kept (the level a shift restarted at). */
 export function lastRecentVolume(s: RecentReadings, fallback: number): number {
   const n = s.recentVolumes.length;
@@ -115,7 +121,21 @@ export function fitRecent(s: RecentReadings, from: number, at: number, noiseVar:
     const x = (times[i]! - at) / DAY_MS;
     rss += (volumes[i]! - my - slope * (x - mx)) ** 2;
   }
-  const sigma2 = Math.max(rss / (n - 2), noiseVar);
+  return lineFromSums(n, mx, my, sxx, slope, Math.max(rss / (n - 2), noiseVar));
+}
+
+/**
+ * The fit of a least-squares line y = my + slope (x - mx) through n points whose x (days from the instant the
+ * line is evaluated at) have mean mx and centred sum of squares sxx, residual variance sigma2.
+ */
+export function lineFromSums(
+  n: number,
+  mx: number,
+  my: number,
+  sxx: number,
+  slope: number,
+  sigma2: number,
+): LineFit {
   return {
     v: my - slope * mx,
     r: -slope,

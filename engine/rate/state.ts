@@ -5,9 +5,10 @@ import type { RateEstimatorState, RateOptions } from './types.js';
  * Bumped whenever the state's shape or meaning changes (2: recent readings kept for refits; 3: daily profile;
  * 4: its running sum; 5: the filter before a rate change, kept one reading; 6: the noise estimate in the
  * filter kept after a rise, which manual dips also keep after their first interval, and the intervals
- * between manual dips; 7: the daily profile's use part).
+ * between manual dips; 7: the daily profile's use part; 8: dense series refit after the slope check too, and
+ * keep the evidence of a rate change across a delivery).
  */
-export const RATE_STATE_VERSION = 7;
+export const RATE_STATE_VERSION = 8;
 
 export function initialState(options: RateOptions = {}): RateEstimatorState {
   const capacity = options.capacity !== undefined && options.capacity > 0 ? options.capacity : null;

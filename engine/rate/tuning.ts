@@ -18,6 +18,23 @@ export const CUSUM_K = 0.5;
 export const CUSUM_H = 4;
 /** Residuals closer together than this are not independent evidence of a change (days). */
 export const CUSUM_DECORRELATION_DAYS = 0.125;
+/**
+ * The slope check of dense series (slope-check.ts): once an hour of data, windows of SLOPE_MIN_DAYS to
+ * SLOPE_WINDOW_DAYS (and SLOPE_MIN_READINGS readings) whose rate is more than SLOPE_MARGIN of the filter's
+ * off by SLOPE_Z standard errors, while the CUSUM on that side is at least SLOPE_CUSUM (half its alarm).
+ * Accuracy bench, hourly scenarios of the dense family on 10 seeds (328 rate changes): median lag 27.5 h
+ * before, 26.4 h with a delivery keeping the change evidence (estimator.ts), 25.4 h with this check too;
+ * rate error 3.1% / 3.4%. Windows from half a day reached 23.4 h but took a night or a lighter weekend under
+ * working hours for a change (the rate fell to a third of the mean: estimator.test.ts), so a window is at
+ * least a day, where the daily shape averages out.
+ */
+export const SLOPE_CHECK_EVERY_MS = 3_600_000;
+export const SLOPE_WINDOW_DAYS = 2;
+export const SLOPE_MIN_DAYS = 1;
+export const SLOPE_MIN_READINGS = 6;
+export const SLOPE_MARGIN = 0.35;
+export const SLOPE_Z = 0.5;
+export const SLOPE_CUSUM = 2;
 /** Below this mean sampling interval a series is dense (a sensor), above it manual. */
 export const DENSE_INTERVAL_DAYS = 2 / 24;
 /**
