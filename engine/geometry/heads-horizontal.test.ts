@@ -33,7 +33,7 @@ describe('prepared horizontal heads', () => {
             // head whose difference was 1e-12 of it plus 1.4e-17, so the bound allows that rounding too.
             // At the degenerate ends of the domain (a spherical head as deep as the shell's radius, a
             // knuckle as large as the shell's radius) the interpolant's error rises to 2.1e-8 of the full
-            // volume (measured on the corners of the domain; a CI run's random case found one): 1e-7 there.
+            // volume (measured on the corners of the domain after a random case failed here): 1e-7 there.
             const degenerate = ('depth' in spec && spec.depth > 0.95) || ('k' in spec && spec.k > 0.45);
             const bound = degenerate ? 1e-7 * full : (1e-12 + 16 * Number.EPSILON) * full;
             expect(Math.abs(fast(level) - horizontalHeadVolume(h, level))).toBeLessThanOrEqual(bound);

@@ -211,16 +211,8 @@ describe('rate changes', () => {
 // (08-17 UTC), so the daily profile learnt before a change is the wrong size after it. Lag as the accuracy
 // bench counts it: hours from the change until the rate is within 20% and stays there a day.
 describe('rate changes under a working-hour shape', () => {
-  const lagOf = (
-    factor: number,
-    changeHour: number,
-    seed: number,
-    share: number,
-    thermal: number,
-    deliveryAfter?: number,
-  ) => {
+  const lagOf = (factor: number, changeHour: number, seed: number, share: number, thermal: number) => {
     const change = 12 * DAY + changeHour * HOUR;
-    const shifts = deliveryAfter === undefined ? [] : [{ at: change + deliveryAfter, volume: 3000 }];
     const shape = (t: number) => {
       const hour = (t % DAY) / HOUR;
       if (share === 0) return 1;
@@ -233,7 +225,6 @@ describe('rate changes under a working-hour shape', () => {
       rate: (t) => (t <= change ? 200 : 200 * factor) * shape(t),
       noise: 20,
       seed,
-      shifts,
     }).map((r) => ({ time: r.time, volume: r.volume + thermal * Math.sin((2 * Math.PI * r.time) / DAY) }));
     const after = analyzeSeries(readings, [], { capacity: 10_000 }).points.filter((p) => p.time >= change);
     const within = after.map((p) => Math.abs(p.rate - 200 * factor) <= 0.2 * 200 * factor);
@@ -246,9 +237,9 @@ describe('rate changes under a working-hour shape', () => {
     return Number.POSITIVE_INFINITY;
   };
   /** Lags of one pattern over changes at night, mid-morning and evening, three noise seeds each, sorted. */
-  const lags = (factor: number, share: number, thermal = 0, deliveryAfter?: number) =>
+  const lags = (factor: number, share: number, thermal = 0) =>
     [2, 10, 18]
-      .flatMap((hour) => [1, 2, 3].map((seed) => lagOf(factor, hour, seed, share, thermal, deliveryAfter)))
+      .flatMap((hour) => [1, 2, 3].map((seed) => lagOf(factor, hour, seed, share, thermal)))
       .sort((a, b) => a - b);
 
   // Before the profile's use part scaled with the rate these were a median of 24 h (worst 32 h) and 25 h.

@@ -21,6 +21,7 @@ const {
   SLOPE_MARGIN,
   SLOPE_MIN_DAYS,
   SLOPE_MIN_READINGS,
+  SLOPE_STEP_F,
   SLOPE_WINDOW_DAYS,
   SLOPE_Z,
 } = tuning;
@@ -29,7 +30,6 @@ const {
 export function checkSlope(s: RateEstimatorState, time: number, previous: number, R: number): void {
   if (Math.floor(time / SLOPE_CHECK_EVERY_MS) === Math.floor(previous / SLOPE_CHECK_EVERY_MS)) return;
   const times = s.recentTimes;
-  const volumes = s.recentVolumes;
   const r = s.r;
   // Readings closer together than the decorrelation time are not independent evidence (as in the CUSUM).
   const correlation = Math.max(1, CUSUM_DECORRELATION_DAYS / s.dtMean);
@@ -41,14 +41,11 @@ export function checkSlope(s: RateEstimatorState, time: number, previous: number
   let sxy = 0;
   let syy = 0;
   let bestScore = SLOPE_Z;
-  let best = { i: -1, n: 0, mx: 0, my: 0, cxx: 0, slope: 0, sigma2: 0 };
+  let best = { i: -1, n: 0, mx: 0, my: 0, cxx: 0, slope: 0, sigma2: 0, rss: 0 };
   // Windows grow backwards from the newest reading; running sums make each one O(1).
   for (let i = times.length - 1; i >= 0 && times[i]! >= from; i--) {
-    // Kept readings are net of the profile at the rate then; the line is fitted to the level plus the
-    // use part (y + r u) against use time (t - u), whose slope is the rate whatever it now is.
-    const u = useProfileAt(s, hourOfDay(times[i]!));
-    const x = (times[i]! - time) / DAY_MS - u;
-    const y = volumes[i]! + r * u;
+    const x = useTimeAt(s, i, time);
+    const y = useLevelAt(s, i);
     n++;
     sx += x;
     sy += y;
@@ -60,21 +57,106 @@ export function checkSlope(s: RateEstimatorState, time: number, previous: number
     if (!(cxx > 0)) continue;
     const cxy = sxy - (sx * sy) / n;
     const slope = cxy / cxx;
-    const sigma2 = Math.max(R, Math.max(0, syy - (sy * sy) / n - slope * cxy) / (n - 2));
+    const rss = Math.max(0, syy - (sy * sy) / n - slope * cxy);
+    const sigma2 = Math.max(R, rss / (n - 2));
     const sd = Math.sqrt((sigma2 * correlation) / cxx);
     const score = (Math.abs(-slope - r) - SLOPE_MARGIN * Math.abs(r)) / sd;
     if (score > bestScore) {
       bestScore = score;
-      best = { i, n, mx: sx / n, my: sy / n, cxx, slope, sigma2 };
+      best = { i, n, mx: sx / n, my: sy / n, cxx, slope, sigma2, rss };
     }
   }
   if (best.i < 0) return;
   // Faster use leaves readings below the prediction: the CUSUM of negative innovations must lean that way.
   const leaning = -best.slope > r ? s.cusumNeg : s.cusumPos;
-  if (leaning < SLOPE_CUSUM) return;
+  if (leaning < SLOPE_CUSUM || stepInstead(s, best.i, time, best.rss)) return;
   const at = times[best.i]!;
   if (!s.changePending) s.changePending = { at, from: r, alarm: time, count: s.count };
   adoptFit(s, lineFromSums(best.n, best.mx, best.my, best.cxx, best.slope, best.sigma2));
   s.basisStart = at;
   resetCusum(s);
+}
+
+// Kept readings are net of the profile at the rate then; lines are fitted to the level plus the use part
+// (y + r u) against use time (t - u, days from `time`), whose slope is the rate whatever it now is.
+function useTimeAt(s: RateEstimatorState, i: number, time: number): number {
+  return (s.recentTimes[i]! - time) / DAY_MS - useProfileAt(s, hourOfDay(s.recentTimes[i]!));
+}
+
+function useLevelAt(s: RateEstimatorState, i: number): number {
+  return s.recentVolumes[i]! + s.r * useProfileAt(s, hourOfDay(s.recentTimes[i]!));
+}
+
+/**
+ * Whether a level shift at the old rate explains the window from reading `first` on better than the one line
+ * (residual sum of squares `lineRss`) does: a withdrawal too small for the noise to flag it as an event
+ * would otherwise pass for a day of faster use, and the rate that follows makes every next day's readings a
+ * "delivery". The shift is the best of one at each reading (a line with a step, least squares, O(1) per step
+ * from suffix sums); it explains the window when it removes most of the line's misfit (an F ratio of
+ * SLOPE_STEP_F on one parameter) with a rate within SLOPE_MARGIN of the filter's.
+ */
+function stepInstead(s: RateEstimatorState, first: number, time: number, lineRss: number): boolean {
+  const last = s.recentTimes.length - 1;
+  let N = 0;
+  let X = 0;
+  let Y = 0;
+  let XX = 0;
+  let XY = 0;
+  let YY = 0;
+  for (let i = first; i <= last; i++) {
+    const x = useTimeAt(s, i, time);
+    const y = useLevelAt(s, i);
+    N++;
+    X += x;
+    Y += y;
+    XX += x * x;
+    XY += x * y;
+    YY += y * y;
+  }
+  // Suffix sums over the readings from the step on: the step's column is 1 there.
+  let m = 0;
+  let sx = 0;
+  let sy = 0;
+  let bestRss = Number.POSITIVE_INFINITY;
+  let bestRate = 0;
+  for (let k = last; k > first; k--) {
+    const x = useTimeAt(s, k, time);
+    m++;
+    sx += x;
+    sy += useLevelAt(s, k);
+    if (m < SLOPE_MIN_READINGS / 2 || N - m < SLOPE_MIN_READINGS / 2) continue;
+    const fit = solve3([N, X, m, X, XX, sx, m, sx, m], [Y, XY, sy]);
+    if (!fit) continue;
+    const rss = YY - (fit[0] * Y + fit[1] * XY + fit[2] * sy);
+    if (rss < bestRss) {
+      bestRss = rss;
+      bestRate = -fit[1];
+    }
+  }
+  if (!Number.isFinite(bestRss) || N <= 3) return false;
+  const f = (lineRss - bestRss) / (Math.max(bestRss, 0) / (N - 3) || Number.MIN_VALUE);
+  return f > SLOPE_STEP_F && Math.abs(bestRate - s.r) <= SLOPE_MARGIN * Math.abs(s.r);
+}
+
+/** Solves the symmetric 3 x 3 system a p = b (row-major a) by Cramer's rule; null when singular. */
+function solve3(a: number[], b: number[]): [number, number, number] | null {
+  const [a0, a1, a2, a3, a4, a5, a6, a7, a8] = a as [
+    number,
+    number,
+    number,
+    number,
+    number,
+    number,
+    number,
+    number,
+    number,
+  ];
+  const [b0, b1, b2] = b as [number, number, number];
+  const det = a0 * (a4 * a8 - a5 * a7) - a1 * (a3 * a8 - a5 * a6) + a2 * (a3 * a7 - a4 * a6);
+  if (!(Math.abs(det) > 0) || !Number.isFinite(det)) return null;
+  return [
+    (b0 * (a4 * a8 - a5 * a7) - a1 * (b1 * a8 - a5 * b2) + a2 * (b1 * a7 - a4 * b2)) / det,
+    (a0 * (b1 * a8 - a5 * b2) - b0 * (a3 * a8 - a5 * a6) + a2 * (a3 * b2 - b1 * a6)) / det,
+    (a0 * (a4 * b2 - b1 * a7) - a1 * (a3 * b2 - b1 * a6) + b0 * (a3 * a7 - a4 * a6)) / det,
+  ];
 }
