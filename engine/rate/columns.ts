@@ -61,37 +61,43 @@ export function columnsFrom(
   deliveries: readonly TimedVolume[],
 ): SeriesColumns {
   const n = readings.length;
-  const c: SeriesColumns = {
-    length: n,
-    time: new Float64Array(n),
-    volume: new Float64Array(n),
-    rate: new Float64Array(n),
-    rateLow: new Float64Array(n),
-    rateHigh: new Float64Array(n),
-    rateSigma: new Float64Array(n),
-    readings: new Float64Array(n),
-    basisDays: new Float64Array(n),
-    suspect: [],
-    events: [],
-    changes: [],
-    suspects: [],
-  };
-  const suspect = c.suspect;
+  // Local arrays, not fields of the result: the per-reading closure below then stores straight into them.
+  const time = new Float64Array(n);
+  const volume = new Float64Array(n);
+  const rate = new Float64Array(n);
+  const rateLow = new Float64Array(n);
+  const rateHigh = new Float64Array(n);
+  const rateSigma = new Float64Array(n);
+  const count = new Float64Array(n);
+  const basisDays = new Float64Array(n);
+  // Sized up front (a push per reading costs more): feedMerged gives every index once, so none stays a hole.
+  const suspect = new Array<string | undefined>(n);
   feedMerged(estimator, readings, deliveries, (i, p) => {
-    c.time[i] = p.time;
-    c.volume[i] = p.volume;
-    c.rate[i] = p.rate;
-    c.rateLow[i] = p.rateLow;
-    c.rateHigh[i] = p.rateHigh;
-    c.rateSigma[i] = p.rateSigma;
-    c.readings[i] = p.readings;
-    c.basisDays[i] = p.basisDays;
-    suspect.push(p.suspect);
+    time[i] = p.time;
+    volume[i] = p.volume;
+    rate[i] = p.rate;
+    rateLow[i] = p.rateLow;
+    rateHigh[i] = p.rateHigh;
+    rateSigma[i] = p.rateSigma;
+    count[i] = p.readings;
+    basisDays[i] = p.basisDays;
+    suspect[i] = p.suspect;
   });
-  c.events = [...estimator.events];
-  c.changes = [...estimator.changes];
-  c.suspects = [...estimator.suspects];
-  return c;
+  return {
+    length: n,
+    time,
+    volume,
+    rate,
+    rateLow,
+    rateHigh,
+    rateSigma,
+    readings: count,
+    basisDays,
+    suspect,
+    events: [...estimator.events],
+    changes: [...estimator.changes],
+    suspects: [...estimator.suspects],
+  };
 }
 
 /** Point `i` of the columns as a RatePoint. */
