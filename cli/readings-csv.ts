@@ -1,7 +1,7 @@
 // Reads the readings CSV of `tankrunway analyze` (cli-contract section 4): a header, then one reading a line.
 // Bad rows are reported with their line number and skipped; the rest go on.
 
-import type { TimedVolume } from '../engine/rate/index.js';
+import type { ReadingColumns, TimedVolume } from '../engine/rate/index.js';
 import { fail, ok, type Result } from '../engine/result.js';
 import { parseInstant } from './iso-instant.js';
 
@@ -14,8 +14,8 @@ export interface RowProblem {
 
 export interface ReadingsTable {
   column: ReadingColumn;
-  /** Litres, sorted by time, one per instant. */
-  readings: TimedVolume[];
+  /** Litres, sorted by time, one per instant: columns, so a long file makes no object per reading. */
+  readings: ReadingColumns;
   /** Logged deliveries, litres, sorted by time. */
   deliveries: TimedVolume[];
   problems: RowProblem[];
@@ -59,6 +59,12 @@ class LineReader {
   done(): boolean {
     return this.at > this.text.length;
   }
+  /** At most how many lines are left (to size arrays up front). */
+  countLeft(): number {
+    let lines = 1;
+    for (let at = this.text.indexOf('\n', this.at); at >= 0; at = this.text.indexOf('\n', at + 1)) lines++;
+    return lines;
+  }
   /** The next line without its "\n" or "\r\n"; '' past the end. */
   next(): string {
     const text = this.text;
@@ -84,6 +90,15 @@ function cellAt(line: string, index: number): string {
   return unquote(end < 0 ? line.slice(start) : line.slice(start, end));
 }
 
+/** The map's readings as columns sorted by time. */
+function sortedColumns(byTime: Map<number, { volume: number }>): ReadingColumns {
+  const sorted = [...byTime.entries()].sort((a, b) => a[0] - b[0]);
+  return {
+    time: Float64Array.from(sorted, ([time]) => time),
+    volume: Float64Array.from(sorted, ([, r]) => r.volume),
+  };
+}
+
 /** Parses the whole CSV text; a header problem is an error, a row problem is reported and skipped. */
 export function parseReadingsCsv(
   text: string,
@@ -106,10 +121,13 @@ export function parseReadingsCsv(
   const deliveredAt = header.indexOf('delivered');
 
   const problems: RowProblem[] = [];
-  // Rows in strictly increasing time (the usual file) go straight to a list; the first row that is not
-  // moves the list into a map keyed by time, which finds duplicates and is sorted at the end.
-  const inOrder: TimedVolume[] = [];
-  const inOrderLines: number[] = [];
+  // Rows in strictly increasing time (the usual file) go straight into columns sized for every line; the
+  // first row that is not moves them into a map keyed by time, which finds duplicates and is sorted at the end.
+  const rowsAtMost = lines.countLeft();
+  const times = new Float64Array(rowsAtMost);
+  const volumes = new Float64Array(rowsAtMost);
+  const rowLines = new Float64Array(rowsAtMost);
+  let kept = 0;
   let byTime: Map<number, { volume: number; line: number }> | null = null;
   const deliveries: TimedVolume[] = [];
   for (let line = 2; !lines.done(); line++) {
@@ -147,16 +165,15 @@ export function parseReadingsCsv(
       continue;
     }
     if (byTime === null) {
-      const last = inOrder.length - 1;
-      if (last < 0 || time > inOrder[last]!.time) {
-        inOrder.push({ time, volume: litres.value });
-        inOrderLines.push(line);
+      if (kept === 0 || time > times[kept - 1]!) {
+        times[kept] = time;
+        volumes[kept] = litres.value;
+        rowLines[kept] = line;
+        kept++;
         continue;
       }
       byTime = new Map();
-      for (let k = 0; k < inOrder.length; k++) {
-        byTime.set(inOrder[k]!.time, { volume: inOrder[k]!.volume, line: inOrderLines[k]! });
-      }
+      for (let k = 0; k < kept; k++) byTime.set(times[k]!, { volume: volumes[k]!, line: rowLines[k]! });
     }
     const earlier = byTime.get(time);
     if (earlier) {
@@ -172,10 +189,8 @@ export function parseReadingsCsv(
   }
   const readings =
     byTime === null
-      ? inOrder
-      : [...byTime.entries()]
-          .map(([time, r]) => ({ time, volume: r.volume }))
-          .sort((a, b) => a.time - b.time);
+      ? { time: times.subarray(0, kept), volume: volumes.subarray(0, kept) }
+      : sortedColumns(byTime);
   deliveries.sort((a, b) => a.time - b.time);
   return ok({ column, readings, deliveries, problems });
 }

@@ -3,6 +3,7 @@
 // The points are the very numbers `addReading` gives: both copy the same scratch point (point.ts).
 import type { Estimator } from './estimator.js';
 import type { ScratchPoint } from './point.js';
+import { inTimeOrder, type ReadingColumns } from './reading-columns.js';
 import type { RateChange, RatePoint, SuspectReading, TankEvent, TimedVolume } from './types.js';
 
 export interface SeriesColumns {
@@ -22,34 +23,27 @@ export interface SeriesColumns {
   suspects: SuspectReading[];
 }
 
-/** The series sorted by time; an already sorted one (the usual case) is used as is, without a copy. */
-export function inTimeOrder(series: readonly TimedVolume[]): readonly TimedVolume[] {
-  for (let i = 1; i < series.length; i++) {
-    if (series[i]!.time < series[i - 1]!.time) return [...series].sort((a, b) => a.time - b.time);
-  }
-  return series;
-}
-
 /**
- * Feeds readings and logged deliveries merged in time order (a delivery logged at the same instant as a
- * reading goes first); `take` sees each reading's point, valid only during the call.
+ * Feeds readings (in time order) and logged deliveries merged in time order (a delivery logged at the same
+ * instant as a reading goes first); `take` sees each reading's point, valid only during the call.
  */
 export function feedMerged(
   estimator: Estimator,
-  readings: readonly TimedVolume[],
+  readings: ReadingColumns,
   deliveries: readonly TimedVolume[],
   take: (index: number, point: ScratchPoint) => void,
 ): void {
-  const sortedReadings = inTimeOrder(readings);
+  const { time, volume } = readings;
   const sortedDeliveries = inTimeOrder(deliveries);
   let d = 0;
-  for (let i = 0; i < sortedReadings.length; i++) {
-    const reading = sortedReadings[i]!;
-    while (d < sortedDeliveries.length && sortedDeliveries[d]!.time <= reading.time) {
+  for (let i = 0; i < time.length; i++) {
+    const at = time[i]!;
+    while (d < sortedDeliveries.length && sortedDeliveries[d]!.time <= at) {
       estimator.addDelivery(sortedDeliveries[d]!.time, sortedDeliveries[d]!.volume);
       d++;
     }
-    take(i, estimator.step(reading.time, reading.volume));
+    // A volume column shorter than the times gives undefined, which the estimator refuses as not a number.
+    take(i, estimator.step(at, volume[i]!));
   }
   for (; d < sortedDeliveries.length; d++)
     estimator.addDelivery(sortedDeliveries[d]!.time, sortedDeliveries[d]!.volume);
@@ -57,10 +51,10 @@ export function feedMerged(
 
 export function columnsFrom(
   estimator: Estimator,
-  readings: readonly TimedVolume[],
+  readings: ReadingColumns,
   deliveries: readonly TimedVolume[],
 ): SeriesColumns {
-  const n = readings.length;
+  const n = readings.time.length;
   // Local arrays, not fields of the result: the per-reading closure below then stores straight into them.
   const time = new Float64Array(n);
   const volume = new Float64Array(n);
