@@ -93,9 +93,25 @@ export function createInstantFormatter(): (ms: number) => string {
     const inDay = ms - cachedDay * DAY_MS;
     const millis = inDay % 1000;
     const secs = (inDay - millis) / 1000;
-    const time = `${prefix}${TWO_DIGITS[Math.floor(secs / 3600)]}:${TWO_DIGITS[Math.floor(secs / 60) % 60]}:${TWO_DIGITS[secs % 60]}`;
-    return millis === 0 ? `${time}Z` : `${time}.${THREE_DIGITS[millis]}Z`;
+    if (millis === 0) return prefix + wholeSecondOfDay(secs);
+    return `${prefix}${clockTime(secs)}.${THREE_DIGITS[millis]}Z`;
   };
+}
+
+/** "HH:MM:SS" of a second of the day. */
+const clockTime = (secs: number) =>
+  `${TWO_DIGITS[Math.floor(secs / 3600)]}:${TWO_DIGITS[Math.floor(secs / 60) % 60]}:${TWO_DIGITS[secs % 60]}`;
+
+// "HH:MM:SSZ" per second of the day, made on first use: an instant on a whole second is then one join of two
+// strings instead of six, which matters when a long series keeps every one alive (and JSON flattens them).
+const SECONDS_OF_DAY: (string | undefined)[] = new Array(86_400).fill(undefined);
+function wholeSecondOfDay(secs: number): string {
+  let text = SECONDS_OF_DAY[secs];
+  if (text === undefined) {
+    text = `${clockTime(secs)}Z`;
+    SECONDS_OF_DAY[secs] = text;
+  }
+  return text;
 }
 
 /** The reference format: toISOString without ".000". */

@@ -1,10 +1,13 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import type { ReadingColumns } from '../engine/rate/index.js';
 import { ok } from '../engine/result.js';
 import { parseInstant, parseReadingsCsv } from './readings-csv.js';
 
 const asLitres = (_c: string, v: number) => ok(v);
 const same = (v: number) => v;
+/** The parsed columns as one { time, volume } per reading, to compare with expected rows. */
+const readingRows = (c: ReadingColumns) => Array.from(c.time, (time, i) => ({ time, volume: c.volume[i] }));
 
 describe('parseReadingsCsv', () => {
   it('sorts rows, keeps one reading per instant, and reports conflicting duplicates', () => {
@@ -20,7 +23,7 @@ describe('parseReadingsCsv', () => {
     const table = parseReadingsCsv(text, asLitres, same);
     expect(table.ok).toBe(true);
     if (!table.ok) return;
-    expect(table.value.readings.map((r) => r.volume)).toEqual([100, 80]);
+    expect(Array.from(table.value.readings.volume)).toEqual([100, 80]);
     expect(table.value.deliveries).toEqual([{ time: Date.UTC(2026, 0, 2, 6), volume: 40 }]);
     expect(table.value.problems).toEqual([
       { line: 5, reason: expect.stringMatching(/second reading.*line 3/) },
@@ -39,7 +42,7 @@ describe('parseReadingsCsv', () => {
     const table = parseReadingsCsv(text, asLitres, same);
     if (!table.ok) throw new Error(table.error);
     expect(table.value.problems.map((p) => p.line)).toEqual([2, 3, 4, 5, 6]);
-    expect(table.value.readings).toEqual([]);
+    expect(readingRows(table.value.readings)).toEqual([]);
   });
 
   it('refuses a header with no reading column', () => {
@@ -75,7 +78,7 @@ describe('parseReadingsCsv on any row order', () => {
         const expected = [...first.entries()]
           .sort((a, b) => a[0] - b[0])
           .map(([h, r]) => ({ time: Date.UTC(2026, 0, 1, h), volume: r.value }));
-        expect(table.value.readings).toEqual(expected);
+        expect(readingRows(table.value.readings)).toEqual(expected);
         expect(table.value.problems.map((p) => p.line)).toEqual(problems);
       }),
     );

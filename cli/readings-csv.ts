@@ -1,7 +1,7 @@
 // Reads the readings CSV of `tankrunway analyze` (cli-contract section 4): a header, then one reading a line.
 // Bad rows are reported with their line number and skipped; the rest go on.
 
-import type { TimedVolume } from '../engine/rate/index.js';
+import type { ReadingColumns, TimedVolume } from '../engine/rate/index.js';
 import { fail, ok, type Result } from '../engine/result.js';
 import { parseInstant } from './iso-instant.js';
 
@@ -14,8 +14,8 @@ export interface RowProblem {
 
 export interface ReadingsTable {
   column: ReadingColumn;
-  /** Litres, sorted by time, one per instant. */
-  readings: TimedVolume[];
+  /** Litres, sorted by time, one per instant: columns, so a long file makes no object per reading. */
+  readings: ReadingColumns;
   /** Logged deliveries, litres, sorted by time. */
   deliveries: TimedVolume[];
   problems: RowProblem[];
@@ -49,19 +49,67 @@ const unquote = (cell: string) => {
     .trim();
 };
 
+/**
+ * The lines of a text one at a time, as split(/\r?\n/) gives them, without an array of all of them (a year of
+ * 5-minute readings is 105k lines that would all stay alive until the end of the parse).
+ */
+class LineReader {
+  private at = 0;
+  constructor(private readonly text: string) {}
+  done(): boolean {
+    return this.at > this.text.length;
+  }
+  /** At most how many lines are left (to size arrays up front). */
+  countLeft(): number {
+    let lines = 1;
+    for (let at = this.text.indexOf('\n', this.at); at >= 0; at = this.text.indexOf('\n', at + 1)) lines++;
+    return lines;
+  }
+  /** The next line without its "\n" or "\r\n"; '' past the end. */
+  next(): string {
+    const text = this.text;
+    const start = this.at;
+    if (start > text.length) return '';
+    const newline = text.indexOf('\n', start);
+    let end = newline < 0 ? text.length : newline;
+    this.at = end + 1;
+    if (end > start && text.charCodeAt(end - 1) === 13) end--;
+    return text.slice(start, end);
+  }
+}
+
+/** Cell `index` of a line of comma-separated cells, unquoted; '' when the line has fewer cells. */
+function cellAt(line: string, index: number): string {
+  let start = 0;
+  for (let k = 0; k < index; k++) {
+    const comma = line.indexOf(',', start);
+    if (comma < 0) return '';
+    start = comma + 1;
+  }
+  const end = line.indexOf(',', start);
+  return unquote(end < 0 ? line.slice(start) : line.slice(start, end));
+}
+
+/** The map's readings as columns sorted by time. */
+function sortedColumns(byTime: Map<number, { volume: number }>): ReadingColumns {
+  const sorted = [...byTime.entries()].sort((a, b) => a[0] - b[0]);
+  return {
+    time: Float64Array.from(sorted, ([time]) => time),
+    volume: Float64Array.from(sorted, ([, r]) => r.volume),
+  };
+}
+
 /** Parses the whole CSV text; a header problem is an error, a row problem is reported and skipped. */
 export function parseReadingsCsv(
   text: string,
   toLitres: ToLitres,
   deliveredToLitres: DeliveredToLitres,
 ): Result<ReadingsTable> {
-  // split('\n') then a trailing '\r' dropped per line: the same lines as split(/\r?\n/), faster.
-  const lines = text.replace(/^\uFEFF/, '').split('\n');
-  for (let i = 0; i < lines.length; i++) {
-    const l = lines[i]!;
-    if (l.charCodeAt(l.length - 1) === 13) lines[i] = l.slice(0, -1);
-  }
-  const header = (lines[0] ?? '').split(',').map((h) => unquote(h).toLowerCase());
+  const lines = new LineReader(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
+  const header = lines
+    .next()
+    .split(',')
+    .map((h) => unquote(h).toLowerCase());
   const timeAt = header.indexOf('time');
   if (timeAt < 0) return fail('the CSV header needs a "time" column (ISO 8601 with an offset or Z)');
   const present = (['volume', 'level', 'percent'] as const).filter((c) => header.includes(c));
@@ -73,25 +121,26 @@ export function parseReadingsCsv(
   const deliveredAt = header.indexOf('delivered');
 
   const problems: RowProblem[] = [];
-  // Rows in strictly increasing time (the usual file) go straight to a list; the first row that is not
-  // moves the list into a map keyed by time, which finds duplicates and is sorted at the end.
-  const inOrder: TimedVolume[] = [];
-  const inOrderLines: number[] = [];
+  // Rows in strictly increasing time (the usual file) go straight into columns sized for every line; the
+  // first row that is not moves them into a map keyed by time, which finds duplicates and is sorted at the end.
+  const rowsAtMost = lines.countLeft();
+  const times = new Float64Array(rowsAtMost);
+  const volumes = new Float64Array(rowsAtMost);
+  const rowLines = new Float64Array(rowsAtMost);
+  let kept = 0;
   let byTime: Map<number, { volume: number; line: number }> | null = null;
   const deliveries: TimedVolume[] = [];
-  for (let i = 1; i < lines.length; i++) {
-    const line = i + 1;
-    const raw = lines[i]!;
+  for (let line = 2; !lines.done(); line++) {
+    const raw = lines.next();
     if (raw.trim() === '') continue;
-    const cells = raw.split(',').map(unquote);
-    const timeText = cells[timeAt] ?? '';
+    const timeText = cellAt(raw, timeAt);
     const time = parseInstant(timeText);
     if (time === null) {
       problems.push({ line, reason: `"${timeText}" is not an ISO 8601 time with an offset or Z` });
       continue;
     }
-    const valueText = cells[valueAt] ?? '';
-    const deliveredText = deliveredAt >= 0 ? (cells[deliveredAt] ?? '') : '';
+    const valueText = cellAt(raw, valueAt);
+    const deliveredText = deliveredAt >= 0 ? cellAt(raw, deliveredAt) : '';
     if (valueText === '' && deliveredText === '') {
       problems.push({ line, reason: `no ${column} and no delivered volume` });
       continue;
@@ -116,16 +165,15 @@ export function parseReadingsCsv(
       continue;
     }
     if (byTime === null) {
-      const last = inOrder.length - 1;
-      if (last < 0 || time > inOrder[last]!.time) {
-        inOrder.push({ time, volume: litres.value });
-        inOrderLines.push(line);
+      if (kept === 0 || time > times[kept - 1]!) {
+        times[kept] = time;
+        volumes[kept] = litres.value;
+        rowLines[kept] = line;
+        kept++;
         continue;
       }
       byTime = new Map();
-      for (let k = 0; k < inOrder.length; k++) {
-        byTime.set(inOrder[k]!.time, { volume: inOrder[k]!.volume, line: inOrderLines[k]! });
-      }
+      for (let k = 0; k < kept; k++) byTime.set(times[k]!, { volume: volumes[k]!, line: rowLines[k]! });
     }
     const earlier = byTime.get(time);
     if (earlier) {
@@ -141,10 +189,8 @@ export function parseReadingsCsv(
   }
   const readings =
     byTime === null
-      ? inOrder
-      : [...byTime.entries()]
-          .map(([time, r]) => ({ time, volume: r.volume }))
-          .sort((a, b) => a.time - b.time);
+      ? { time: times.subarray(0, kept), volume: volumes.subarray(0, kept) }
+      : sortedColumns(byTime);
   deliveries.sort((a, b) => a.time - b.time);
   return ok({ column, readings, deliveries, problems });
 }

@@ -3,6 +3,7 @@
 // The points are the very numbers `addReading` gives: both copy the same scratch point (point.ts).
 import type { Estimator } from './estimator.js';
 import type { ScratchPoint } from './point.js';
+import { inTimeOrder, type ReadingColumns } from './reading-columns.js';
 import type { RateChange, RatePoint, SuspectReading, TankEvent, TimedVolume } from './types.js';
 
 export interface SeriesColumns {
@@ -22,34 +23,27 @@ export interface SeriesColumns {
   suspects: SuspectReading[];
 }
 
-/** The series sorted by time; an already sorted one (the usual case) is used as is, without a copy. */
-export function inTimeOrder(series: readonly TimedVolume[]): readonly TimedVolume[] {
-  for (let i = 1; i < series.length; i++) {
-    if (series[i]!.time < series[i - 1]!.time) return [...series].sort((a, b) => a.time - b.time);
-  }
-  return series;
-}
-
 /**
- * Feeds readings and logged deliveries merged in time order (a delivery logged at the same instant as a
- * reading goes first); `take` sees each reading's point, valid only during the call.
+ * Feeds readings (in time order) and logged deliveries merged in time order (a delivery logged at the same
+ * instant as a reading goes first); `take` sees each reading's point, valid only during the call.
  */
 export function feedMerged(
   estimator: Estimator,
-  readings: readonly TimedVolume[],
+  readings: ReadingColumns,
   deliveries: readonly TimedVolume[],
   take: (index: number, point: ScratchPoint) => void,
 ): void {
-  const sortedReadings = inTimeOrder(readings);
+  const { time, volume } = readings;
   const sortedDeliveries = inTimeOrder(deliveries);
   let d = 0;
-  for (let i = 0; i < sortedReadings.length; i++) {
-    const reading = sortedReadings[i]!;
-    while (d < sortedDeliveries.length && sortedDeliveries[d]!.time <= reading.time) {
+  for (let i = 0; i < time.length; i++) {
+    const at = time[i]!;
+    while (d < sortedDeliveries.length && sortedDeliveries[d]!.time <= at) {
       estimator.addDelivery(sortedDeliveries[d]!.time, sortedDeliveries[d]!.volume);
       d++;
     }
-    take(i, estimator.step(reading.time, reading.volume));
+    // A volume column shorter than the times gives undefined, which the estimator refuses as not a number.
+    take(i, estimator.step(at, volume[i]!));
   }
   for (; d < sortedDeliveries.length; d++)
     estimator.addDelivery(sortedDeliveries[d]!.time, sortedDeliveries[d]!.volume);
@@ -57,41 +51,47 @@ export function feedMerged(
 
 export function columnsFrom(
   estimator: Estimator,
-  readings: readonly TimedVolume[],
+  readings: ReadingColumns,
   deliveries: readonly TimedVolume[],
 ): SeriesColumns {
-  const n = readings.length;
-  const c: SeriesColumns = {
-    length: n,
-    time: new Float64Array(n),
-    volume: new Float64Array(n),
-    rate: new Float64Array(n),
-    rateLow: new Float64Array(n),
-    rateHigh: new Float64Array(n),
-    rateSigma: new Float64Array(n),
-    readings: new Float64Array(n),
-    basisDays: new Float64Array(n),
-    suspect: [],
-    events: [],
-    changes: [],
-    suspects: [],
-  };
-  const suspect = c.suspect;
+  const n = readings.time.length;
+  // Local arrays, not fields of the result: the per-reading closure below then stores straight into them.
+  const time = new Float64Array(n);
+  const volume = new Float64Array(n);
+  const rate = new Float64Array(n);
+  const rateLow = new Float64Array(n);
+  const rateHigh = new Float64Array(n);
+  const rateSigma = new Float64Array(n);
+  const count = new Float64Array(n);
+  const basisDays = new Float64Array(n);
+  // Sized up front (a push per reading costs more): feedMerged gives every index once, so none stays a hole.
+  const suspect = new Array<string | undefined>(n);
   feedMerged(estimator, readings, deliveries, (i, p) => {
-    c.time[i] = p.time;
-    c.volume[i] = p.volume;
-    c.rate[i] = p.rate;
-    c.rateLow[i] = p.rateLow;
-    c.rateHigh[i] = p.rateHigh;
-    c.rateSigma[i] = p.rateSigma;
-    c.readings[i] = p.readings;
-    c.basisDays[i] = p.basisDays;
-    suspect.push(p.suspect);
+    time[i] = p.time;
+    volume[i] = p.volume;
+    rate[i] = p.rate;
+    rateLow[i] = p.rateLow;
+    rateHigh[i] = p.rateHigh;
+    rateSigma[i] = p.rateSigma;
+    count[i] = p.readings;
+    basisDays[i] = p.basisDays;
+    suspect[i] = p.suspect;
   });
-  c.events = [...estimator.events];
-  c.changes = [...estimator.changes];
-  c.suspects = [...estimator.suspects];
-  return c;
+  return {
+    length: n,
+    time,
+    volume,
+    rate,
+    rateLow,
+    rateHigh,
+    rateSigma,
+    readings: count,
+    basisDays,
+    suspect,
+    events: [...estimator.events],
+    changes: [...estimator.changes],
+    suspects: [...estimator.suspects],
+  };
 }
 
 /** Point `i` of the columns as a RatePoint. */

@@ -154,6 +154,28 @@ describe('estimator laws', () => {
     );
   });
 
+  it('readings given as columns, in any order, give the same columns as the same readings as objects', () => {
+    fc.assert(
+      fc.property(anyArb, fc.array(fc.nat()), ({ readings, logged, options }, swaps) => {
+        // Some readings swapped out of time order (equal times too: the sort must keep their order).
+        const shuffled = [...readings];
+        for (let k = 0; k + 1 < swaps.length; k += 2) {
+          const a = swaps[k]! % shuffled.length;
+          const b = swaps[k + 1]! % shuffled.length;
+          [shuffled[a], shuffled[b]] = [shuffled[b]!, shuffled[a]!];
+        }
+        const columns = {
+          time: Float64Array.from(shuffled, (r) => r.time),
+          volume: Float64Array.from(shuffled, (r) => r.volume),
+        };
+        expect(analyzeSeriesColumns(columns, logged, options)).toEqual(
+          analyzeSeriesColumns(shuffled, logged, options),
+        );
+      }),
+      { numRuns: 100 },
+    );
+  });
+
   it('resumes exactly from JSON taken mid-series', () => {
     fc.assert(
       fc.property(anyArb, fc.nat(), ({ readings, options }, cut) => {

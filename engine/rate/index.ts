@@ -2,6 +2,7 @@
 import { columnsFrom, feedMerged, type SeriesColumns } from './columns.js';
 import { Estimator } from './estimator.js';
 import { copyPoint } from './point.js';
+import { columnsInTimeOrder, type ReadingColumns, readingColumns } from './reading-columns.js';
 import { initialState } from './state.js';
 import { isRateEstimatorState } from './state-check.js';
 import type {
@@ -33,6 +34,7 @@ export function createRateEstimator(options?: RateOptions): RateEstimator {
 
 export { pointAt, pointsOf, type SeriesColumns } from './columns.js';
 export { eventsOf } from './logged.js';
+export type { ReadingColumns } from './reading-columns.js';
 export { RATE_STATE_VERSION } from './state.js';
 export { isRateEstimatorState } from './state-check.js';
 
@@ -66,7 +68,7 @@ export function analyzeSeries(
 ): SeriesAnalysis {
   const estimator = new Estimator(initialState(options));
   const points: RatePoint[] = new Array(readings.length);
-  feedMerged(estimator, readings, deliveries, (i, p) => {
+  feedMerged(estimator, readingColumns(readings), deliveries, (i, p) => {
     points[i] = copyPoint(p);
   });
   return {
@@ -79,12 +81,17 @@ export function analyzeSeries(
 
 /**
  * The same analysis as `analyzeSeries` with the points as columns of typed arrays: no object per reading,
- * for long series (the `analyze` command). `pointsOf` / `pointAt` turn them back into RatePoints.
+ * for long series (the `analyze` command). `pointsOf` / `pointAt` turn them back into RatePoints. The readings
+ * may come as columns too (a parsed CSV), so a long series makes no object per reading on the way in either.
  */
 export function analyzeSeriesColumns(
-  readings: readonly TimedVolume[],
+  readings: readonly TimedVolume[] | ReadingColumns,
   deliveries: readonly TimedVolume[],
   options?: RateOptions,
 ): SeriesColumns {
-  return columnsFrom(new Estimator(initialState(options)), readings, deliveries);
+  const input = isReadingColumns(readings) ? columnsInTimeOrder(readings) : readingColumns(readings);
+  return columnsFrom(new Estimator(initialState(options)), input, deliveries);
 }
+
+const isReadingColumns = (readings: readonly TimedVolume[] | ReadingColumns): readings is ReadingColumns =>
+  !Array.isArray(readings);
