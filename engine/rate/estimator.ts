@@ -213,13 +213,15 @@ export class Estimator implements RateEstimator {
     // steady-state error, about sqrt(2 R dt / T^3), is near RATE_TARGET_PRECISION of the rate.
     // The floor's scale is at least 1 L: an empty tank of unknown size has scale 0, and 0 / 0 is no memory.
     const wanted = RATE_TARGET_PRECISION * Math.abs(s.r) + 1e-6 * Math.max(s.scale, 1);
-    const quiet = Math.cbrt((2 * R * s.dtMean) / (wanted * wanted));
-    const memory = Math.max(
-      RATE_MEMORY_DAYS,
-      RATE_MEMORY_INTERVALS * s.dtMean,
-      Math.min(RATE_MEMORY_MAX_DAYS, quiet),
-    );
-    const q = (R * s.dtMean) / memory ** 4;
+    const floor = Math.max(RATE_MEMORY_DAYS, RATE_MEMORY_INTERVALS * s.dtMean);
+    let memory = floor;
+    if (floor < RATE_MEMORY_MAX_DAYS) {
+      // Compared cubed: the cube root (a tenth of a reading's cost) is taken only when it sets the memory.
+      const quietCubed = (2 * R * s.dtMean) / (wanted * wanted);
+      if (quietCubed > floor * floor * floor) memory = Math.min(RATE_MEMORY_MAX_DAYS, Math.cbrt(quietCubed));
+    }
+    const memory2 = memory * memory;
+    const q = (R * s.dtMean) / (memory2 * memory2);
     const pr = predict(s, dt, q, this.pr);
     // A tank that ran dry stops falling: readings at the bottom are not a rise (a delivery) above the line.
     if (pr.v < 0) pr.v = 0;
