@@ -29,6 +29,17 @@ function series(plan: Plan): TimedVolume[] {
   return out;
 }
 
+/**
+ * 300 L/day over the week, three quarters of it in working hours (08-17) and a quarter less at weekends (the
+ * last two days of each week from t = 0).
+ */
+function workWeekUse(t: number): number {
+  const weekMean = (5 + 2 * 0.75) / 7;
+  const hour = (t % DAY) / HOUR;
+  const weekend = Math.floor(t / DAY) % 7 >= 5 ? 0.75 : 1;
+  return (300 * (hour >= 8 && hour < 17 ? (0.75 * 24) / 9 : (0.25 * 24) / 15) * weekend) / weekMean;
+}
+
 describe('rate estimator on a steady dense series', () => {
   const readings = series({ start: 9000, step: HOUR, days: 10, rate: () => 300, noise: 20 });
   const { points, events, suspects } = analyzeSeries(readings, [], { capacity: 10_000 });
@@ -261,15 +272,17 @@ describe('rate changes under a working-hour shape', () => {
   it('keeps a lighter weekend under working hours from swinging the rate', () => {
     // 300 L/day over the week, a quarter less at weekends; a delivery mid-way. Windows of half a day let the
     // slope check take a night or a weekend for a change: the rate then fell to 69-94 L/day on these seeds.
-    const weekMean = (5 + 2 * 0.75) / 7;
-    const shaped = (t: number) => {
-      const hour = (t % DAY) / HOUR;
-      const weekend = Math.floor(t / DAY) % 7 >= 5 ? 0.75 : 1;
-      return (300 * (hour >= 8 && hour < 17 ? (0.75 * 24) / 9 : (0.25 * 24) / 15) * weekend) / weekMean;
-    };
     for (const seed of [1, 2, 3, 4, 5]) {
       const shifts = [{ at: 14 * DAY, volume: 4000 }];
-      const readings = series({ start: 9500, step: HOUR, days: 28, rate: shaped, noise: 30, seed, shifts });
+      const readings = series({
+        start: 9500,
+        step: HOUR,
+        days: 28,
+        rate: workWeekUse,
+        noise: 30,
+        seed,
+        shifts,
+      });
       const later = analyzeSeries(readings, [], { capacity: 10_000 }).points.filter((p) => p.time >= 7 * DAY);
       expect(Math.min(...later.map((p) => p.rate))).toBeGreaterThan(135);
     }
@@ -430,19 +443,15 @@ describe('shift cases from held-out scenario seeds', () => {
 });
 
 describe('rate range on correlated dense readings', () => {
-  // 300 L/day on average, three quarters of it in working hours (08-17) and a quarter less at weekends, plus
-  // a daily thermal swing: readings minutes apart share these deviations, so more of them are not more news.
-  const weekMean = (5 + 2 * 0.75) / 7;
-  const shaped = (t: number) => {
-    const hour = (t % DAY) / HOUR;
-    const weekend = Math.floor(t / DAY) % 7 >= 5 ? 0.75 : 1;
-    return (300 * (hour >= 8 && hour < 17 ? (0.75 * 24) / 9 : (0.25 * 24) / 15) * weekend) / weekMean;
-  };
+  // A daily thermal swing on top of workWeekUse: readings minutes apart share these deviations, so more of
+  // them are not more news.
   const coverage = (step: number) => {
-    const readings = series({ start: 9500, step, days: 30, rate: shaped, noise: 50, seed: 3 }).map((r) => ({
-      time: r.time,
-      volume: r.volume + 30 * Math.sin((2 * Math.PI * r.time) / DAY),
-    }));
+    const readings = series({ start: 9500, step, days: 30, rate: workWeekUse, noise: 50, seed: 3 }).map(
+      (r) => ({
+        time: r.time,
+        volume: r.volume + 30 * Math.sin((2 * Math.PI * r.time) / DAY),
+      }),
+    );
     const later = analyzeSeries(readings, [], { capacity: 10_000 }).points.filter((p) => p.time >= 5 * DAY);
     return later.filter((p) => p.rateLow <= 300 && 300 <= p.rateHigh).length / later.length;
   };

@@ -26,6 +26,18 @@ const {
   SLOPE_Z,
 } = tuning;
 
+/** Sums over a window's points (x, y): count, x, y, x^2, x y, y^2. */
+interface Sums {
+  n: number;
+  sx: number;
+  sy: number;
+  sxx: number;
+  sxy: number;
+  syy: number;
+}
+
+const NO_SUMS: Sums = { n: 0, sx: 0, sy: 0, sxx: 0, sxy: 0, syy: 0 };
+
 /** Runs once per SLOPE_CHECK_EVERY_MS of data time, after the reading at `time` (the previous at `previous`). */
 export function checkSlope(s: RateEstimatorState, time: number, previous: number, R: number): void {
   if (Math.floor(time / SLOPE_CHECK_EVERY_MS) === Math.floor(previous / SLOPE_CHECK_EVERY_MS)) return;
@@ -44,7 +56,7 @@ export function checkSlope(s: RateEstimatorState, time: number, previous: number
   let sxy = 0;
   let syy = 0;
   let bestScore = SLOPE_Z;
-  let best = { i: -1, n: 0, mx: 0, my: 0, cxx: 0, slope: 0, sigma2: 0, rss: 0 };
+  let best = { i: -1, n: 0, mx: 0, my: 0, cxx: 0, slope: 0, sigma2: 0, rss: 0, sums: NO_SUMS };
   // Windows grow backwards from the newest reading; running sums make each one O(1).
   for (let i = times.length - 1; i >= 0 && times[i]! >= from; i--) {
     const x = useTimeAt(s, i, time);
@@ -66,13 +78,13 @@ export function checkSlope(s: RateEstimatorState, time: number, previous: number
     const score = (Math.abs(-slope - r) - SLOPE_MARGIN * Math.abs(r)) / sd;
     if (score > bestScore) {
       bestScore = score;
-      best = { i, n, mx: sx / n, my: sy / n, cxx, slope, sigma2, rss };
+      best = { i, n, mx: sx / n, my: sy / n, cxx, slope, sigma2, rss, sums: { n, sx, sy, sxx, sxy, syy } };
     }
   }
   if (best.i < 0) return;
   // Faster use leaves readings below the prediction: the CUSUM of negative innovations must lean that way.
   const leaning = -best.slope > r ? s.cusumNeg : s.cusumPos;
-  if (leaning < SLOPE_CUSUM || stepInstead(s, best.i, time, best.rss)) return;
+  if (leaning < SLOPE_CUSUM || stepInstead(s, best.i, time, best.rss, best.sums)) return;
   const at = times[best.i]!;
   if (!s.changePending) s.changePending = { at, from: r, alarm: time, count: s.count };
   adoptFit(s, lineFromSums(best.n, best.mx, best.my, best.cxx, best.slope, best.sigma2));
@@ -91,31 +103,16 @@ function useLevelAt(s: RateEstimatorState, i: number): number {
 }
 
 /**
- * Whether a level shift at the old rate explains the window from reading `first` on better than the one line
- * (residual sum of squares `lineRss`) does: a withdrawal too small for the noise to flag it as an event
+ * Whether a level shift at the old rate explains the window from reading `first` on (its sums `w`) better than
+ * the one line (residual sum of squares `lineRss`) does: a withdrawal too small for the noise to flag it as an event
  * would otherwise pass for a day of faster use, and the rate that follows makes every next day's readings a
  * "delivery". The shift is the best of one at each reading (a line with a step, least squares, O(1) per step
  * from suffix sums); it explains the window when it removes most of the line's misfit (an F ratio of
  * SLOPE_STEP_F on one parameter) with a rate within SLOPE_MARGIN of the filter's.
  */
-function stepInstead(s: RateEstimatorState, first: number, time: number, lineRss: number): boolean {
+function stepInstead(s: RateEstimatorState, first: number, time: number, lineRss: number, w: Sums): boolean {
   const last = s.recentTimes.length - 1;
-  let N = 0;
-  let X = 0;
-  let Y = 0;
-  let XX = 0;
-  let XY = 0;
-  let YY = 0;
-  for (let i = first; i <= last; i++) {
-    const x = useTimeAt(s, i, time);
-    const y = useLevelAt(s, i);
-    N++;
-    X += x;
-    Y += y;
-    XX += x * x;
-    XY += x * y;
-    YY += y * y;
-  }
+  const { n: N, sx: X, sy: Y, sxx: XX, sxy: XY, syy: YY } = w;
   // Suffix sums over the readings from the step on: the step's column is 1 there.
   let m = 0;
   let sx = 0;
