@@ -270,8 +270,8 @@ describe('rate changes under a working-hour shape', () => {
   });
 
   it('keeps a lighter weekend under working hours from swinging the rate', () => {
-    // 300 L/day over the week, a quarter less at weekends; a delivery mid-way. Windows of half a day let the
-    // slope check take a night or a weekend for a change: the rate then fell to 69-94 L/day on these seeds.
+    // 300 L/day over the week, a quarter less at weekends; a delivery mid-way. Windows of 12 or 18 hours let
+    // the slope check take a night or a weekend for a change: the rate then fell to 69-94 L/day on these seeds.
     for (const seed of [1, 2, 3, 4, 5]) {
       const shifts = [{ at: 14 * DAY, volume: 4000 }];
       const readings = series({

@@ -1,7 +1,7 @@
 // Rate changes the CUSUM is slow to see. Its standardised innovations chase a slope change the filter is
 // already half following, so a halving of use on an hourly sensor took a day or more to raise an alarm. Every
-// hour of data this check fits a least-squares line to the readings of each trailing window of one to two
-// days and asks whether its rate differs from the filter's by more than SLOPE_MARGIN of the rate: a test
+// hour of data this check fits a least-squares line to the readings of each trailing window of 20 hours to
+// two days and asks whether its rate differs from the filter's by more than SLOPE_MARGIN of the rate: a test
 // for a slope change at an unknown instant (the generalised likelihood ratio of Willsky & Jones, IEEE Trans.
 // Automatic Control 21, 1976; from memory) with a least effect size, so a weekend's lighter use is not a
 // change. It acts only when the CUSUM already leans the same way (SLOPE_CUSUM). The line is fitted in "use
