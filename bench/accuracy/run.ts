@@ -8,7 +8,12 @@ import { num, pct } from './figures.js';
 import { metText } from './goals.js';
 import { moreManualSeeds, moreManualSeedsMarkdown } from './manual-seeds.js';
 import { type FamilySummary, median } from './metrics.js';
-import { hourlyLag as moreHourlyLag, moreSeedsLags, moreSeedsSection } from './more-seeds.js';
+import {
+  LAG_CHECK_SEEDS,
+  hourlyLag as moreHourlyLag,
+  moreSeedsLags,
+  moreSeedsSection,
+} from './more-seeds.js';
 import { CHECK_SEEDS, otherSeedsTable, seedRow, TUNING_SEEDS } from './other-seeds.js';
 import { lineChartPng, thin } from './plot.js';
 import { backtestRainwater } from './real.js';
@@ -154,6 +159,7 @@ const heldOut = evaluate(
   accuracySuite({ dense: HELD_OUT_DENSE, manual: 0, filling: 0, hard: 0 }, HELD_OUT_SEED),
 ).find((r) => r.family === 'dense');
 const more = moreSeedsLags();
+const lagCheck = moreSeedsLags(LAG_CHECK_SEEDS);
 const otherSeeds = [...TUNING_SEEDS, ...CHECK_SEEDS].map(seedRow);
 const moreManual = moreManualSeeds();
 // A checkout outside the folder that holds ../shared (a git worktree elsewhere) names the real data here.
@@ -205,7 +211,20 @@ for (const r of results) {
   }
 }
 if (heldOut) md.push(...heldOutSection(heldOut));
-md.push(...moreSeedsSection(more));
+md.push(
+  ...moreSeedsSection(
+    more,
+    'More seeds',
+    "These are tuning seeds: the slope check's values were chosen on them (engine/rate/tuning.ts).",
+  ),
+);
+md.push(
+  ...moreSeedsSection(
+    lagCheck,
+    'Check seeds',
+    'Held out from that tuning: first run once, as totals, after the values were chosen.',
+  ),
+);
 md.push('## Goals from the issue, as measured here', '');
 const dense = results.find((r) => r.family === 'dense')?.byMethod;
 const manual = results.find((r) => r.family === 'manual')?.byMethod;
@@ -230,6 +249,7 @@ if (dense && manual) {
     `| (check: dense lag at hourly sampling against the day's use) | ${num(hourlyDayUseLag, 1)} h | |`,
     `| (held-out seed ${HELD_OUT_SEED}: dense lag at hourly sampling, median) | ${heldOut ? num(hourlyLagOf(heldOut), 1) : 'n/a'} h | ${heldOut ? (hourlyLagOf(heldOut) <= 24 ? 'yes' : 'no') : ''} |`,
     `| (more seeds ${more.seeds.join(', ')}, used in tuning: dense lag at hourly sampling, median of ${more.byInterval.get(3_600_000)?.length ?? 0} changes) | ${num(moreHourlyLag(more), 1)} h | ${moreHourlyLag(more) <= 24 ? 'yes' : 'no'} |`,
+    `| (check seeds ${lagCheck.seeds.join(', ')}, held out: dense lag at hourly sampling, median of ${lagCheck.byInterval.get(3_600_000)?.length ?? 0} changes) | ${num(moreHourlyLag(lagCheck), 1)} h | ${moreHourlyLag(lagCheck) <= 24 ? 'yes' : 'no'} |`,
     `| manual delivery F1 >= 0.95 | ${num(m.refillF1)} | ${metText('manual', 'refillF1', m.refillF1)} |`,
     `| manual rate error <= 10% | ${pct(m.rateError)} | ${metText('manual', 'rateError', m.rateError)} |`,
     `| range coverage 70-90% (dense rate / manual rate) | ${pct(e.rateCoverage)} / ${pct(m.rateCoverage)} | ${metText('dense', 'rateCoverage', e.rateCoverage) === 'yes' && metText('manual', 'rateCoverage', m.rateCoverage) === 'yes' ? 'yes' : 'no'} |`,
