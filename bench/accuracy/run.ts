@@ -237,6 +237,15 @@ if (dense && manual) {
     denseFamily.perScenario.filter((p) => p.intervalMs === 3_600_000).flatMap((p) => p.metrics.dayUseLags),
   );
   const better = (f: typeof dense) => Math.min(f.ls7.rateError, f['ls7-no-rises'].rateError);
+  // Every dense rate change the run timed at hourly sampling: the main suite, seed 777, the more and check seeds.
+  const hourlyLags = (r: FamilyResult | undefined) =>
+    (r?.perScenario ?? []).filter((p) => p.intervalMs === 3_600_000).flatMap((p) => p.metrics.lags);
+  const pooled = [
+    ...hourlyLags(denseFamily),
+    ...hourlyLags(heldOut),
+    ...(more.byInterval.get(3_600_000) ?? []),
+    ...(lagCheck.byInterval.get(3_600_000) ?? []),
+  ];
   md.push(
     '| goal | measured | met |',
     '|---|---|---|',
@@ -250,6 +259,7 @@ if (dense && manual) {
     `| (held-out seed ${HELD_OUT_SEED}: dense lag at hourly sampling, median) | ${heldOut ? num(hourlyLagOf(heldOut), 1) : 'n/a'} h | ${heldOut ? (hourlyLagOf(heldOut) <= 24 ? 'yes' : 'no') : ''} |`,
     `| (more seeds ${more.seeds.join(', ')}, used in tuning: dense lag at hourly sampling, median of ${more.byInterval.get(3_600_000)?.length ?? 0} changes) | ${num(moreHourlyLag(more), 1)} h | ${moreHourlyLag(more) <= 24 ? 'yes' : 'no'} |`,
     `| (check seeds ${lagCheck.seeds.join(', ')}, held out: dense lag at hourly sampling, median of ${lagCheck.byInterval.get(3_600_000)?.length ?? 0} changes) | ${num(moreHourlyLag(lagCheck), 1)} h | ${moreHourlyLag(lagCheck) <= 24 ? 'yes' : 'no'} |`,
+    `| (all of the above pooled: dense lag at hourly sampling, median of ${pooled.length} changes) | ${num(median(pooled), 1)} h | ${median(pooled) <= 24 ? 'yes' : 'no'} |`,
     `| manual delivery F1 >= 0.95 | ${num(m.refillF1)} | ${metText('manual', 'refillF1', m.refillF1)} |`,
     `| manual rate error <= 10% | ${pct(m.rateError)} | ${metText('manual', 'rateError', m.rateError)} |`,
     `| range coverage 70-90% (dense rate / manual rate) | ${pct(e.rateCoverage)} / ${pct(m.rateCoverage)} | ${metText('dense', 'rateCoverage', e.rateCoverage) === 'yes' && metText('manual', 'rateCoverage', m.rateCoverage) === 'yes' ? 'yes' : 'no'} |`,
