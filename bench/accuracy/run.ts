@@ -70,9 +70,11 @@ function byInterval(r: FamilyResult): string {
   ].join('\n');
 }
 
-/** Median adaptation lag over the scenarios sampled hourly (the interval the lag goal is stated at). */
-const hourlyLagOf = (r: FamilyResult) =>
-  median(r.perScenario.filter((p) => p.intervalMs === 3_600_000).flatMap((p) => p.metrics.lags));
+/** Lags of every rate change timed at hourly sampling (the interval the lag goal is stated at). */
+const hourlyLags = (r: FamilyResult | undefined) =>
+  (r?.perScenario ?? []).filter((p) => p.intervalMs === 3_600_000).flatMap((p) => p.metrics.lags);
+/** Their median. */
+const hourlyLagOf = (r: FamilyResult) => median(hourlyLags(r));
 
 function hardBreakdown(r: FamilyResult): string {
   const rows = r.perScenario.map(({ name, metrics }) => {
@@ -238,8 +240,6 @@ if (dense && manual) {
   );
   const better = (f: typeof dense) => Math.min(f.ls7.rateError, f['ls7-no-rises'].rateError);
   // Every dense rate change the run timed at hourly sampling: the main suite, seed 777, the more and check seeds.
-  const hourlyLags = (r: FamilyResult | undefined) =>
-    (r?.perScenario ?? []).filter((p) => p.intervalMs === 3_600_000).flatMap((p) => p.metrics.lags);
   const pooled = [
     ...hourlyLags(denseFamily),
     ...hourlyLags(heldOut),

@@ -56,11 +56,12 @@ export function checkSlope(s: RateEstimatorState, time: number, previous: number
   let sxy = 0;
   let syy = 0;
   let bestScore = SLOPE_Z;
-  let best = { i: -1, n: 0, mx: 0, my: 0, cxx: 0, slope: 0, sigma2: 0, rss: 0, sums: NO_SUMS };
+  let best = { i: -1, cxx: 0, slope: 0, sigma2: 0, rss: 0, sums: NO_SUMS };
   // Windows grow backwards from the newest reading; running sums make each one O(1).
   for (let i = times.length - 1; i >= 0 && times[i]! >= from; i--) {
-    const x = useTimeAt(s, i, time);
-    const y = useLevelAt(s, i);
+    const u = useAt(s, i);
+    const x = (times[i]! - time) / DAY_MS - u;
+    const y = s.recentVolumes[i]! + r * u;
     n++;
     sx += x;
     sy += y;
@@ -78,7 +79,7 @@ export function checkSlope(s: RateEstimatorState, time: number, previous: number
     const score = (Math.abs(-slope - r) - SLOPE_MARGIN * Math.abs(r)) / sd;
     if (score > bestScore) {
       bestScore = score;
-      best = { i, n, mx: sx / n, my: sy / n, cxx, slope, sigma2, rss, sums: { n, sx, sy, sxx, sxy, syy } };
+      best = { i, cxx, slope, sigma2, rss, sums: { n, sx, sy, sxx, sxy, syy } };
     }
   }
   if (best.i < 0) return;
@@ -87,20 +88,16 @@ export function checkSlope(s: RateEstimatorState, time: number, previous: number
   if (leaning < SLOPE_CUSUM || stepInstead(s, best.i, time, best.rss, best.sums)) return;
   const at = times[best.i]!;
   if (!s.changePending) s.changePending = { at, from: r, alarm: time, count: s.count };
-  adoptFit(s, lineFromSums(best.n, best.mx, best.my, best.cxx, best.slope, best.sigma2));
+  const w = best.sums;
+  adoptFit(s, lineFromSums(w.n, w.sx / w.n, w.sy / w.n, best.cxx, best.slope, best.sigma2));
   s.basisStart = at;
   resetCusum(s);
 }
 
 // Kept readings are net of the profile at the rate then; lines are fitted to the level plus the use part
-// (y + r u) against use time (t - u, days from `time`), whose slope is the rate whatever it now is.
-function useTimeAt(s: RateEstimatorState, i: number, time: number): number {
-  return (s.recentTimes[i]! - time) / DAY_MS - useProfileAt(s, hourOfDay(s.recentTimes[i]!));
-}
-
-function useLevelAt(s: RateEstimatorState, i: number): number {
-  return s.recentVolumes[i]! + s.r * useProfileAt(s, hourOfDay(s.recentTimes[i]!));
-}
+// (y + r u) against use time (t - u, days from the check), whose slope is the rate whatever it now is.
+// The use part u (days) at kept reading i:
+const useAt = (s: RateEstimatorState, i: number) => useProfileAt(s, hourOfDay(s.recentTimes[i]!));
 
 /**
  * Whether a level shift at the old rate explains the window from reading `first` on (its sums `w`) better than
@@ -120,10 +117,10 @@ function stepInstead(s: RateEstimatorState, first: number, time: number, lineRss
   let bestRss = Number.POSITIVE_INFINITY;
   let bestRate = 0;
   for (let k = last; k > first; k--) {
-    const x = useTimeAt(s, k, time);
+    const u = useAt(s, k);
     m++;
-    sx += x;
-    sy += useLevelAt(s, k);
+    sx += (s.recentTimes[k]! - time) / DAY_MS - u;
+    sy += s.recentVolumes[k]! + s.r * u;
     if (m < SLOPE_MIN_READINGS / 2 || N - m < SLOPE_MIN_READINGS / 2) continue;
     const fit = solve3([N, X, m, X, XX, sx, m, sx, m], [Y, XY, sy]);
     if (!fit) continue;
